@@ -1,0 +1,114 @@
+import express, { type Express, type RequestHandler } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Transporter } from 'nodemailer';
+import type { Env } from './env';
+import { appUrlOf } from './env';
+import type { Db } from './db/client';
+import type { Storage } from './storage/storage';
+import { createLogger, type Logger } from './logger';
+import { JobRunner, type JobRunnerOptions } from './jobs/runner';
+import { createMailer, type Mailer } from './mail/outbox';
+import { createLucia, type AuthLucia } from './auth/lucia';
+import { loadSession } from './auth/middleware';
+import { sameOrigin } from './http/same-origin';
+import { errorHandler, apiNotFound } from './http/error-handler';
+import { DEFAULT_LIMITS, type Limits } from './http/rate-limit';
+import { createAuthRepository } from './features/auth/auth.repository';
+import { createAuthService } from './features/auth/auth.service';
+import { authRoutes } from './features/auth/auth.routes';
+
+export type AppDeps = {
+  env: Env;
+  db: Db;
+  storage: Storage;
+  mailTransport: Transporter;
+  logger?: Logger;
+  limits?: Partial<Limits>;
+  jobOptions?: JobRunnerOptions;
+  /** Built client to serve (production); null when Vite serves it (dev) or in API tests. */
+  clientDist?: string | null;
+  /** Vite's dev middleware, mounted after the API in `npm run dev`. */
+  devMiddleware?: RequestHandler;
+  /** Public settings the client reads at boot (e.g. the mail catcher's inbox URL). */
+  publicConfig?: Record<string, unknown>;
+};
+
+export type AppContext = {
+  env: Env;
+  db: Db;
+  storage: Storage;
+  logger: Logger;
+  jobs: JobRunner;
+  mailer: Mailer;
+  lucia: AuthLucia;
+  appUrl: string;
+  limits: Limits;
+};
+
+export type KitlaneApp = { app: Express; ctx: AppContext };
+
+function securityHeaders(dev: boolean): RequestHandler {
+  return helmet({
+    contentSecurityPolicy: {
+      directives: {
+        // Vite's dev server injects an inline preamble for hot reload; production has no inline script.
+        scriptSrc: dev ? ["'self'", "'unsafe-inline'"] : ["'self'"],
+        connectSrc: dev ? ["'self'", 'ws:'] : ["'self'"],
+        mediaSrc: ["'self'", 'blob:'],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        // Form posts go to the payment fake's hosted page on another local port.
+        formAction: ["'self'", 'http://localhost:*', 'http://127.0.0.1:*'],
+        upgradeInsecureRequests: null,
+      },
+    },
+    crossOriginEmbedderPolicy: false,
+    strictTransportSecurity: false,
+  });
+}
+
+export function createApp(deps: AppDeps): KitlaneApp {
+  const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL);
+  const appUrl = appUrlOf(deps.env);
+  const limits: Limits = { ...DEFAULT_LIMITS, ...deps.limits };
+  const jobs = new JobRunner(deps.db, logger, deps.jobOptions);
+  const mailer = createMailer(jobs, deps.mailTransport, deps.env.MAIL_FROM);
+  const lucia = createLucia(deps.db);
+  const ctx: AppContext = { env: deps.env, db: deps.db, storage: deps.storage, logger, jobs, mailer, lucia, appUrl, limits };
+
+  const authService = createAuthService({ db: deps.db, repo: createAuthRepository(deps.db), lucia, mailer, appUrl });
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(securityHeaders(Boolean(deps.devMiddleware)));
+
+  const api = express.Router();
+  api.get('/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  api.get('/config', (_req, res) => {
+    res.json({ ...deps.publicConfig });
+  });
+  api.use(sameOrigin([appUrl]));
+  api.use(express.json({ limit: '100kb' }));
+  api.use(loadSession(lucia));
+  api.use(authRoutes(authService, lucia, limits));
+  api.use(apiNotFound);
+
+  app.use('/api', api);
+
+  if (deps.devMiddleware) {
+    app.use(deps.devMiddleware);
+  } else if (deps.clientDist && existsSync(deps.clientDist)) {
+    const dist = deps.clientDist;
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell; the router shows its own 404 page.
+    app.get('/{*splat}', (_req, res) => {
+      res.sendFile(join(dist, 'index.html'));
+    });
+  }
+  app.use(errorHandler(logger));
+  return { app, ctx };
+}

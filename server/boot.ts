@@ -1,0 +1,103 @@
+import { join, resolve } from 'node:path';
+import { mkdirSync } from 'node:fs';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Env } from './env';
+import { appUrlOf } from './env';
+import { openDb, type Db } from './db/client';
+import { applyMigrations } from './db/migrate';
+import { seedDemo } from './db/seed';
+import { createLocalStorage } from './storage/storage';
+import { createSmtpTransport } from './mail/outbox';
+import { createApp, type AppDeps, type KitlaneApp } from './app';
+import { startMailCatcher, type MailCatcher } from '../fakes/mail/server';
+import { createLogger } from './logger';
+
+export type Running = {
+  url: string;
+  port: number;
+  db: Db;
+  kitlane: KitlaneApp;
+  mail: MailCatcher | null;
+  mailWebUrl: string | null;
+  close(): Promise<void>;
+};
+
+export type BootOptions = {
+  env: Env;
+  /** For tests: start the fakes on random ports (0) and keep them private to this instance. */
+  randomPorts?: boolean;
+  dev?: boolean;
+  quiet?: boolean;
+  appDeps?: Partial<AppDeps>;
+};
+
+/**
+ * Starts everything `npm start` needs in one process: database (migrated, seeded on first start),
+ * the local fakes, the job runner and the HTTP server. Tests call the same function.
+ */
+export async function boot(opts: BootOptions): Promise<Running> {
+  const { env } = opts;
+  const logger = createLogger(opts.quiet ? 'silent' : env.LOG_LEVEL);
+  const dataDir = resolve(env.DATA_DIR);
+  mkdirSync(dataDir, { recursive: true });
+  const db = openDb(join(dataDir, 'kitlane.db'));
+  applyMigrations(db);
+
+  const mail = env.START_FAKES
+    ? await startMailCatcher({ smtpPort: opts.randomPorts ? 0 : env.MAIL_SMTP_PORT, webPort: opts.randomPorts ? 0 : env.MAIL_WEB_PORT })
+    : null;
+  const mailTransport = env.SMTP_URL
+    ? createSmtpTransport({ url: env.SMTP_URL })
+    : createSmtpTransport({ host: '127.0.0.1', port: mail?.smtpPort ?? env.MAIL_SMTP_PORT });
+
+  const seeded = env.SEED_DEMO ? await seedDemo(db, env.DEMO_PASSWORD) : { seeded: false };
+  if (seeded.seeded) logger.info('seeded the demo world');
+
+  let vite: { middlewares: AppDeps['devMiddleware']; close(): Promise<void> } | null = null;
+  if (opts.dev) {
+    const { createServer } = await import('vite');
+    const server = await createServer({ server: { middlewareMode: true }, appType: 'spa' });
+    vite = { middlewares: server.middlewares, close: () => server.close() };
+  }
+
+  const kitlane = createApp({
+    env,
+    db,
+    storage: createLocalStorage(join(dataDir, 'files')),
+    mailTransport,
+    logger,
+    clientDist: opts.dev ? null : resolve('dist'),
+    devMiddleware: vite?.middlewares,
+    publicConfig: { mailInboxUrl: mail?.webUrl ?? null },
+    ...opts.appDeps,
+  });
+
+  const server: Server = await new Promise((res, rej) => {
+    const s = kitlane.app.listen(opts.randomPorts ? 0 : env.PORT, env.HOST, () => res(s));
+    s.once('error', rej);
+  });
+  const port = (server.address() as AddressInfo).port;
+  kitlane.ctx.jobs.start();
+
+  let closed = false;
+  return {
+    url: opts.randomPorts ? `http://127.0.0.1:${port}` : appUrlOf(env),
+    port,
+    db,
+    kitlane,
+    mail,
+    mailWebUrl: mail?.webUrl ?? null,
+    async close() {
+      if (closed) return;
+      closed = true;
+      server.closeAllConnections?.();
+      await new Promise<void>((r) => server.close(() => r()));
+      await kitlane.ctx.jobs.stop();
+      mailTransport.close();
+      await mail?.close();
+      await vite?.close();
+      db.$client.close();
+    },
+  };
+}
