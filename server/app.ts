@@ -18,6 +18,8 @@ import { DEFAULT_LIMITS, type Limits } from './http/rate-limit';
 import { createAuthRepository } from './features/auth/auth.repository';
 import { createAuthService } from './features/auth/auth.service';
 import { authRoutes } from './features/auth/auth.routes';
+import { createNotifications, type Notifications } from './features/notifications/notifications.service';
+import { featureRoutes } from './features/registry';
 
 export type AppDeps = {
   env: Env;
@@ -45,6 +47,7 @@ export type AppContext = {
   lucia: AuthLucia;
   appUrl: string;
   limits: Limits;
+  notifications: Notifications;
 };
 
 export type KitlaneApp = { app: Express; ctx: AppContext };
@@ -75,7 +78,8 @@ export function createApp(deps: AppDeps): KitlaneApp {
   const jobs = new JobRunner(deps.db, logger, deps.jobOptions);
   const mailer = createMailer(jobs, deps.mailTransport, deps.env.MAIL_FROM);
   const lucia = createLucia(deps.db);
-  const ctx: AppContext = { env: deps.env, db: deps.db, storage: deps.storage, logger, jobs, mailer, lucia, appUrl, limits };
+  const notifications = createNotifications({ db: deps.db, mailer, appUrl });
+  const ctx: AppContext = { env: deps.env, db: deps.db, storage: deps.storage, logger, jobs, mailer, lucia, appUrl, limits, notifications };
 
   const authService = createAuthService({ db: deps.db, repo: createAuthRepository(deps.db), lucia, mailer, appUrl });
 
@@ -95,6 +99,7 @@ export function createApp(deps: AppDeps): KitlaneApp {
   api.use(express.json({ limit: '100kb' }));
   api.use(loadSession(lucia));
   api.use(authRoutes(authService, lucia, limits));
+  for (const routes of featureRoutes) api.use(routes(ctx));
   api.use(apiNotFound);
 
   app.use('/api', api);

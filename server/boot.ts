@@ -51,9 +51,6 @@ export async function boot(opts: BootOptions): Promise<Running> {
     ? createSmtpTransport({ url: env.SMTP_URL })
     : createSmtpTransport({ host: '127.0.0.1', port: mail?.smtpPort ?? env.MAIL_SMTP_PORT });
 
-  const seeded = env.SEED_DEMO ? await seedDemo(db, env.DEMO_PASSWORD) : { seeded: false };
-  if (seeded.seeded) logger.info('seeded the demo world');
-
   let vite: { middlewares: AppDeps['devMiddleware']; close(): Promise<void> } | null = null;
   if (opts.dev) {
     const { createServer } = await import('vite');
@@ -72,6 +69,9 @@ export async function boot(opts: BootOptions): Promise<Running> {
     publicConfig: { mailInboxUrl: mail?.webUrl ?? null },
     ...opts.appDeps,
   });
+
+  const seeded = env.SEED_DEMO ? await seedDemo(kitlane.ctx, env.DEMO_PASSWORD) : { seeded: false };
+  if (seeded.seeded) logger.info('seeded the demo world');
 
   const server: Server = await new Promise((res, rej) => {
     const s = kitlane.app.listen(opts.randomPorts ? 0 : env.PORT, env.HOST, () => res(s));

@@ -297,16 +297,17 @@ export class WavReader {
   private pending: PendingRead | null = null;
   private flip = 0;
 
-  private constructor(handle: FileHandle, info: WavInfo, blockBytes: number) {
+  private constructor(handle: FileHandle, info: WavInfo, blockFrames: number) {
     this.handle = handle;
     this.info = info;
-    this.framesPerBlock = Math.max(1, Math.floor(blockBytes / info.blockAlign));
+    this.framesPerBlock = Math.max(1, Math.floor(blockFrames));
     const bytes = this.framesPerBlock * info.blockAlign;
     // Separate ArrayBuffers at offset 0 so 16/32/64-bit views over them are always aligned.
     this.buffers = [new Uint8Array(new ArrayBuffer(bytes)), new Uint8Array(new ArrayBuffer(bytes))];
   }
 
-  static async open(path: string, opts: { blockBytes?: number } = {}): Promise<WavReader> {
+  /** `blockFrames` defaults to about 2 MiB of file bytes per read, a multiple of 256 frames. */
+  static async open(path: string, opts: { blockFrames?: number } = {}): Promise<WavReader> {
     let handle: FileHandle;
     try {
       handle = await open(path, 'r');
@@ -316,7 +317,8 @@ export class WavReader {
     try {
       const { size } = await handle.stat();
       const info = await readWavInfo(handle, size);
-      return new WavReader(handle, info, opts.blockBytes ?? DEFAULT_BLOCK_BYTES);
+      const defaultFrames = Math.max(256, Math.floor(DEFAULT_BLOCK_BYTES / info.blockAlign / 256) * 256);
+      return new WavReader(handle, info, opts.blockFrames ?? defaultFrames);
     } catch (error) {
       await handle.close();
       throw error;
@@ -373,7 +375,7 @@ export class WavReader {
 
 /** Header-only look at a file, for tools that need the format without reading audio. */
 export async function probeWav(path: string): Promise<WavInfo> {
-  const reader = await WavReader.open(path, { blockBytes: 1 });
+  const reader = await WavReader.open(path, { blockFrames: 1 });
   await reader.close();
   return reader.info;
 }

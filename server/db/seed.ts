@@ -4,6 +4,8 @@ import type { Db } from './client';
 import { users } from './schema';
 import { hashPassword } from '../auth/password';
 import { DEMO_PEOPLE } from './demo-world';
+import { seedSteps, type SeedState } from './seed-steps';
+import type { AppContext } from '../app';
 
 export type SeedResult = { seeded: boolean; userIds: Record<string, string> };
 
@@ -16,7 +18,8 @@ export function isEmpty(db: Db): boolean {
  * Seeds the demo world once, on an empty database. Later features add their part through their
  * own services (seed steps registered in server/db/seed-steps.ts) so demo data obeys the same rules.
  */
-export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult> {
+export async function seedDemo(ctx: AppContext, demoPassword: string): Promise<SeedResult> {
+  const db: Db = ctx.db;
   if (!isEmpty(db)) return { seeded: false, userIds: {} };
   // One hash for all demo accounts: they share DEMO_PASSWORD, and argon2 is deliberately slow.
   const passwordHash = await hashPassword(demoPassword);
@@ -40,5 +43,7 @@ export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult
         .run();
     }
   });
+  const state: SeedState = { userIds };
+  for (const step of seedSteps) await step.run(ctx, state);
   return { seeded: true, userIds };
 }

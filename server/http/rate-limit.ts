@@ -1,4 +1,4 @@
-import { rateLimit, type Options } from 'express-rate-limit';
+import { rateLimit, ipKeyGenerator, type Options } from 'express-rate-limit';
 
 export type LimitConfig = { windowMs: number; limit: number };
 
@@ -19,9 +19,18 @@ export function limiter(name: string, cfg: LimitConfig, keyExtra?: Options['keyG
 }
 
 export const DEFAULT_LIMITS = {
-  login: { windowMs: 5 * 60_000, limit: 20 },
+  // Per address and per account: a flood on one account is stopped early, a spray over many
+  // accounts from one address a little later.
+  login: { windowMs: 5 * 60_000, limit: 100 },
+  loginPerAccount: { windowMs: 5 * 60_000, limit: 10 },
   signup: { windowMs: 60 * 60_000, limit: 20 },
   passwordReset: { windowMs: 15 * 60_000, limit: 10 },
   messages: { windowMs: 60_000, limit: 30 },
 } satisfies Record<string, LimitConfig>;
 export type Limits = typeof DEFAULT_LIMITS;
+
+/** Key for per-account limits: the client's address plus the email it tries. */
+export const ipAndEmailKey: Options['keyGenerator'] = (req) => {
+  const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase().slice(0, 254) : '';
+  return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
+};

@@ -1,3 +1,6 @@
 // Every domain's tables, one file each; drizzle-kit and the app read them from here.
 export * from './users';
 export * from './jobs';
+export * from './profiles';
+export * from './briefs';
+export * from './messages';

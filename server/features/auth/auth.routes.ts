@@ -3,7 +3,7 @@ import { validateBody, bodyOf } from '../../http/validate';
 import { requireUser, setSessionCookie, clearSessionCookie } from '../../auth/middleware';
 import type { AuthLucia } from '../../auth/lucia';
 import type { AuthService } from './auth.service';
-import { limiter, type Limits } from '../../http/rate-limit';
+import { limiter, ipAndEmailKey, type Limits } from '../../http/rate-limit';
 import {
   changePasswordInputSchema,
   forgotPasswordInputSchema,
@@ -23,7 +23,12 @@ export function authRoutes(auth: AuthService, lucia: AuthLucia, limits: Limits):
     res.status(201).json({ user });
   });
 
-  r.post('/auth/login', limiter('sign-in', limits.login), validateBody(loginInputSchema), async (req, res) => {
+  r.post(
+    '/auth/login',
+    limiter('sign-in', limits.login),
+    limiter('sign-in', limits.loginPerAccount, ipAndEmailKey),
+    validateBody(loginInputSchema),
+    async (req, res) => {
     const { user, sessionId } = await auth.login(bodyOf(res, loginInputSchema));
     setSessionCookie(req, res, lucia, sessionId);
     res.json({ user });

@@ -1,0 +1,11 @@
+export { Button, ButtonLink, buttonClasses } from './button';
+export { TextField, FieldError } from './text-field';
+export { SelectField } from './select-field';
+export { CheckboxGroup, type CheckboxOption } from './checkbox-group';
+export { Card } from './card';
+export { Alert } from './alert';
+export { Spinner, SpinnerIcon, PageSpinner } from './spinner';
+export { Badge } from './badge';
+export { PageHeader } from './page-header';
+export { EmptyState } from './empty-state';
+export { cx } from './cx';

@@ -1,0 +1,39 @@
+// Every route path of the client in one table. `path` is what the router matches; `getHref` builds a link
+// (with query strings where a page reads one), so no component types a URL by hand.
+
+/** Only same-app paths are accepted as a return address, so a crafted link cannot send people off-site. */
+export function safeNext(next: string | null | undefined): string | null {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return null;
+  return next;
+}
+
+function withNext(base: string, next?: string | null): string {
+  const safe = safeNext(next);
+  return safe ? `${base}?next=${encodeURIComponent(safe)}` : base;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  signIn: { path: '/sign-in', getHref: (next?: string | null) => withNext('/sign-in', next) },
+  signUp: { path: '/sign-up', getHref: () => '/sign-up' },
+  checkInbox: { path: '/sign-up/check-inbox', getHref: () => '/sign-up/check-inbox' },
+  verifyEmail: { path: '/verify-email', getHref: (token: string) => `/verify-email?token=${encodeURIComponent(token)}` },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+  resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}` },
+  account: { path: '/account', getHref: () => '/account' },
+
+  // Filled by later issues; until then they render the "coming soon in this build" page.
+  myBriefs: { path: '/briefs/mine', getHref: () => '/briefs/mine' },
+  openBriefs: { path: '/briefs', getHref: () => '/briefs' },
+  findDrummers: { path: '/drummers', getHref: () => '/drummers' },
+  rooms: { path: '/rooms', getHref: () => '/rooms' },
+  myRooms: { path: '/rooms/mine', getHref: () => '/rooms/mine' },
+  myProfile: { path: '/profile', getHref: () => '/profile' },
+  myQuotes: { path: '/quotes', getHref: () => '/quotes' },
+  messages: { path: '/messages', getHref: () => '/messages' },
+  bookings: { path: '/bookings', getHref: () => '/bookings' },
+  notifications: { path: '/notifications', getHref: () => '/notifications' },
+  adminDesk: { path: '/admin', getHref: () => '/admin' },
+} as const;
+
+export type PathName = keyof typeof paths;

@@ -1,0 +1,3 @@
+export const configKeys = {
+  all: ['config'] as const,
+};
