@@ -210,6 +210,12 @@ export function finishCoefficients(finish: OpeningFinish): BandCoefficients {
 
 /** Every problem with a room's geometry, with the path of the offending field (same shape as zod's issues). */
 export function validateRoomGeometry(room: RoomGeometry): GeometryIssue[] {
+  const fieldIssues = roomGeometryFieldIssues(room);
+  return fieldIssues.length > 0 ? fieldIssues : roomGeometryCrossIssues(room);
+}
+
+/** Problems with single fields: dimensions, material ids, coefficients, panel and opening areas. */
+export function roomGeometryFieldIssues(room: RoomGeometry): GeometryIssue[] {
   const issues: GeometryIssue[] = [];
   issues.push(...validateDimensions(room.dimensions));
   for (const surface of SURFACE_IDS) {
@@ -219,8 +225,15 @@ export function validateRoomGeometry(room: RoomGeometry): GeometryIssue[] {
   }
   (room.panels ?? []).forEach((panel, i) => issues.push(...validatePlacedItem(panel, ['panels', i])));
   (room.openings ?? []).forEach((opening, i) => issues.push(...validatePlacedItem(opening, ['openings', i])));
-  if (issues.length === 0) issues.push(...validateCoverage(room), ...validateSomeAbsorption(room));
   return issues;
+}
+
+/**
+ * Problems between fields: panels and openings larger than their surface, a band in which nothing absorbs.
+ * Only meaningful once roomGeometryFieldIssues finds nothing (the zod schemas check single fields themselves).
+ */
+export function roomGeometryCrossIssues(room: RoomGeometry): GeometryIssue[] {
+  return [...validateCoverage(room), ...validateSomeAbsorption(room)];
 }
 
 export class RoomGeometryError extends RangeError {

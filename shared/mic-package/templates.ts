@@ -84,7 +84,7 @@ const TEMPLATE_TEXT: Readonly<Record<TemplateId, { label: string; description: s
 
 /** A fresh, numbered copy of a template's channels, ready to edit. */
 export function channelsFromTemplate(id: TemplateId): MicChannel[] {
-  return TEMPLATE_SOURCES[id].map((source, i) => ({ number: i + 1, ...DEFAULTS[source] }));
+  return TEMPLATE_SOURCES[id].map((source, i) => defaultChannel(source, i + 1));
 }
 
 export function getTemplate(id: TemplateId): PackageTemplate {
@@ -98,7 +98,7 @@ export function listTemplates(): PackageTemplate[] {
 /** The default settings for one source, e.g. when an engineer adds a channel; "other" starts as a plain dynamic. */
 export function defaultChannel(source: SourceId, number: number): MicChannel {
   if (source === 'other') {
-    return { number, source, micType: 'dynamic', pattern: 'cardioid', distanceCm: null, aim: '', lowCut: false, polarityInvert: false };
+    return { number, source, micType: 'dynamic', pattern: 'cardioid', distanceCm: null, aim: '', lowCut: false, polarityInvert: false, model: '', note: '' };
   }
-  return { number, ...DEFAULTS[source] };
+  return { number, ...DEFAULTS[source], model: '', note: '' };
 }

@@ -9,6 +9,6 @@ afterEach(() => {
   const calls = spy?.mock.calls ?? [];
   spy?.mockRestore();
   if (calls.length > 0) {
-    throw new Error(`unexpected console.error: ${calls.map((c) => c.map(String).join(' ')).join('\n')}`);
+    throw new Error(`unexpected console.error: ${calls.map((c: unknown[]) => c.map(String).join(' ')).join('\n')}`);
   }
 });
