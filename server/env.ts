@@ -23,6 +23,8 @@ export const envSchema = z.object({
   DEMO_PASSWORD: z.string().min(10).default('kitlane-demo-pass'),
   SEED_DEMO: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
   LOG_LEVEL: z.enum(['silent', 'error', 'info', 'debug']).default('info'),
+  // How long a new message may stay unread before its recipient gets a digest mail (issue 3: 10 minutes).
+  MESSAGE_DIGEST_DELAY_MS: z.coerce.number().int().min(100).max(24 * 3600_000).default(10 * 60_000),
 });
 
 export type Env = z.infer<typeof envSchema>;

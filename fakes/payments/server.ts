@@ -115,7 +115,8 @@ function authenticate(header: string | undefined): void {
     });
   }
   if (!key.startsWith('sk_test_')) {
-    const masked = key.length > 8 ? `${key.slice(0, 8)}${'*'.repeat(Math.max(0, key.length - 12))}${key.slice(-4)}` : '****';
+    // Shown masked, as the hosted API does, so logs of failed requests do not leak keys.
+    const masked = key.length > 12 ? `${key.slice(0, 8)}${'*'.repeat(key.length - 12)}${key.slice(-4)}` : `${key.slice(0, 3)}****`;
     throw new FakeApiError(401, { type: 'invalid_request_error', code: 'api_key_invalid', message: `Invalid API Key provided: ${masked}. This fake accepts secret test keys (sk_test_…).` });
   }
 }

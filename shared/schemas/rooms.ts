@@ -93,7 +93,7 @@ const amountMinorSchema = z
 export const timeZoneSchema = z
   .string()
   .trim()
-  .refine(isIanaTimeZone, 'Use a time zone name such as Europe/Lisbon');
+  .refine(isIanaTimeZone, 'Use an IANA time zone name (Area/Location, or UTC)');
 
 const roomFields = {
   name: z.string().trim().min(1, 'Give the room a name').max(120, 'Keep the name under 120 characters'),

@@ -1,6 +1,7 @@
 import { sqliteTable, text, integer, index, primaryKey, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { users } from './users';
 import { briefs, bookings } from './briefs';
+import { NOTIFICATION_KINDS, type NotificationKind } from '../../../shared/schemas/notifications';
 
 // One thread per (brief, drummer) before hiring and one per booking after.
 export const threads = sqliteTable(
@@ -28,6 +29,8 @@ export const threadParticipants = sqliteTable(
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
     lastReadAt: integer({ mode: 'timestamp_ms' }),
+    // Messages up to this time were already in a digest mail to this participant (never mailed twice).
+    digestedUntil: integer({ mode: 'timestamp_ms' }),
   },
   (t) => [primaryKey({ columns: [t.threadId, t.userId] }), index('thread_participants_user_idx').on(t.userId)],
 );
@@ -52,19 +55,9 @@ export const messages = sqliteTable(
   (t) => [index('messages_thread_idx').on(t.threadId, t.createdAt)],
 );
 
-export const NOTIFICATION_KINDS = [
-  'brief_invite',
-  'quote_received',
-  'quote_accepted',
-  'quote_declined',
-  'package_confirm',
-  'message_digest',
-  'booking_update',
-  'payment',
-  'delivery',
-  'dispute',
-] as const;
-export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
+// The list lives in shared/ so the client's settings page uses the same kinds (relative import: drizzle-kit
+// reads this file without the @shared alias).
+export { NOTIFICATION_KINDS, type NotificationKind };
 
 export const notifications = sqliteTable(
   'notifications',

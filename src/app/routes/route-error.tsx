@@ -3,7 +3,7 @@ import { paths } from '@/config/paths';
 import { Alert, Button, ButtonLink, PageHeader } from '@/components/ui';
 import { isApiError } from '@/lib/api-client';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { NotFoundContent } from './not-found';
+import { NotFoundContent } from '@/components/errors/not-found-content';
 
 function describe(error: unknown): string {
   if (isApiError(error)) return error.status === 0 ? error.message : `The server said: ${error.message}`;

@@ -1,0 +1,1 @@
+ALTER TABLE `thread_participants` ADD `digested_until` integer;
