@@ -10,8 +10,17 @@ import type { Route } from './routes-types';
 
 const capabilityInputSchema = z.strictObject({ requested: boolParam });
 
+const controllerInputSchema = z.strictObject({
+  stripe_dashboard: z.strictObject({ type: enumParam(['express', 'full', 'none']) }).optional(),
+  fees: z.strictObject({ payer: enumParam(['account', 'application']) }).optional(),
+  losses: z.strictObject({ payments: enumParam(['application', 'stripe']) }).optional(),
+  requirement_collection: enumParam(['application', 'stripe']).optional(),
+});
+
 export const accountCreateInputSchema = z.strictObject({
-  type: enumParam(['express', 'standard', 'custom']),
+  type: enumParam(['express', 'standard', 'custom']).optional(),
+  // The newer way to describe an account: who controls it. Only the dashboard type decides anything here.
+  controller: controllerInputSchema.optional(),
   country: z.string().length(2).optional(),
   email: z.string().optional(),
   business_type: enumParam(['individual', 'company', 'non_profit', 'government_entity']).optional(),
@@ -53,8 +62,18 @@ export function getAccount(core: PaymentsCore, id: string): Account {
   return account;
 }
 
+const DASHBOARD_TYPE: Record<string, Account['type']> = { express: 'express', full: 'standard', none: 'custom' };
+
+function accountType(input: AccountCreateInput): Account['type'] {
+  if (input.type) return input.type;
+  const dashboard = input.controller?.stripe_dashboard?.type;
+  if (dashboard) return DASHBOARD_TYPE[dashboard];
+  throw invalidRequest('Missing required param: type (or controller[stripe_dashboard][type]).', { code: 'parameter_missing', param: 'type' });
+}
+
 function createAccount(core: PaymentsCore, params: Parameters<Route['handle']>[1]['params']): unknown {
   const input = parseParams(accountCreateInputSchema, params);
+  const type = accountType(input);
   const country = (input.country ?? 'US').toUpperCase();
   const defaultCurrency = input.default_currency?.toLowerCase() ?? COUNTRY_CURRENCY[country];
   if (!defaultCurrency) throw invalidRequest(`This fake has no default currency for country ${country}; pass default_currency.`, { param: 'country' });
@@ -84,7 +103,7 @@ function createAccount(core: PaymentsCore, params: Parameters<Route['handle']>[1
       current_deadline: null,
       errors: [],
     },
-    type: input.type,
+    type,
   };
   core.state.accounts[account.id] = account;
   return render(core, account, input.expand);

@@ -5,7 +5,7 @@ import { checkAmountRange, checkCurrency, checkMinimumCharge, formatAmount } fro
 import { enumParam, expandParam, intParam, listParams, metadataParam, parseParams, stringParam } from './params';
 import type { PaymentsCore } from './core';
 import { listBody, newestFirst, paginate, render } from './render';
-import { attemptPayment, newCardPaymentMethod, newPaymentIntent } from './payment-intents';
+import { allowedTypes, attemptPayment, newCardPaymentMethod, newPaymentIntent } from './payment-intents';
 import { normaliseCardNumber, outcomeForCardNumber } from './card-outcomes';
 import type { CheckoutLineItem, CheckoutSession } from './types';
 import type { Route } from './routes-types';
@@ -34,7 +34,8 @@ export const checkoutSessionCreateInputSchema = z.strictObject({
   client_reference_id: stringParam(200).optional(),
   customer_email: z.string().optional(),
   expires_at: intParam.optional(),
-  payment_method_types: z.array(enumParam(['card'])).optional(),
+  allowed_payment_method_types: z.array(z.string()).optional(),
+  payment_method_types: z.array(z.string()).optional(),
   locale: z.string().optional(),
   submit_type: enumParam(['auto', 'book', 'donate', 'pay']).optional(),
   payment_intent_data: z
@@ -140,10 +141,12 @@ function createCheckoutSession(core: PaymentsCore, params: Parameters<Route['han
       param: 'line_items',
     });
   }
+  const allowed = allowedTypes(input, input.allowed_payment_method_types ? 'allowed_payment_method_types' : 'payment_method_types');
   const id = newId(ID_PREFIX.checkoutSession, 58);
   const session: CheckoutSession = {
     id,
     object: 'checkout.session',
+    allowed_payment_method_types: allowed,
     amount_subtotal: total,
     amount_total: total,
     cancel_url: input.cancel_url ?? null,
@@ -158,7 +161,7 @@ function createCheckoutSession(core: PaymentsCore, params: Parameters<Route['han
     metadata: input.metadata ?? {},
     mode: 'payment',
     payment_intent: null,
-    payment_method_types: input.payment_method_types ?? ['card'],
+    payment_method_types: ['card'],
     payment_status: 'unpaid',
     status: 'open',
     success_url: input.success_url ?? null,
@@ -238,7 +241,7 @@ export function payCheckoutSession(core: PaymentsCore, sessionId: string, cardNu
         transfer_group: intentData?.transfer_group ?? null,
         metadata: intentData?.metadata ?? {},
         description: intentData?.description ?? null,
-        payment_method_types: session.payment_method_types,
+        allowed_payment_method_types: session.allowed_payment_method_types,
       });
     session.payment_intent = intent.id;
     const method = newCardPaymentMethod(core, normaliseCardNumber(cardNumber).slice(-4));

@@ -17,7 +17,9 @@ export const paymentIntentCreateInputSchema = z.strictObject({
   transfer_group: stringParam().optional(),
   metadata: metadataParam.optional(),
   description: stringParam(1000).optional(),
-  payment_method_types: z.array(enumParam(['card'])).optional(),
+  // The pinned API version (2026-10-28) takes allowed_payment_method_types; older ones payment_method_types.
+  allowed_payment_method_types: z.array(z.string()).optional(),
+  payment_method_types: z.array(z.string()).optional(),
   automatic_payment_methods: z.strictObject({ enabled: boolParam, allow_redirects: enumParam(['always', 'never']).optional() }).optional(),
   return_url: z.string().optional(),
   capture_method: enumParam(['automatic', 'automatic_async']).optional(),
@@ -54,12 +56,13 @@ export function getCharge(core: PaymentsCore, id: string, param = 'id'): Charge 
 /** Builds a PaymentIntent without attempting payment (shared by the API and hosted checkout). */
 export function newPaymentIntent(
   core: PaymentsCore,
-  fields: { amount: number; currency: string; transfer_group: string | null; metadata: Record<string, string>; description: string | null; payment_method_types: string[] },
+  fields: { amount: number; currency: string; transfer_group: string | null; metadata: Record<string, string>; description: string | null; allowed_payment_method_types: string[] | null },
 ): PaymentIntent {
   const id = newId(ID_PREFIX.paymentIntent);
   const intent: PaymentIntent = {
     id,
     object: 'payment_intent',
+    allowed_payment_method_types: fields.allowed_payment_method_types,
     amount: fields.amount,
     amount_capturable: 0,
     amount_received: 0,
@@ -74,7 +77,8 @@ export function newPaymentIntent(
     livemode: false,
     metadata: fields.metadata,
     payment_method: null,
-    payment_method_types: fields.payment_method_types,
+    // Only cards exist in this fake, so whatever was allowed, card is what is offered.
+    payment_method_types: ['card'],
     status: 'requires_payment_method',
     transfer_group: fields.transfer_group,
   };
@@ -175,17 +179,27 @@ function resolveServerSidePaymentMethod(core: PaymentsCore, id: string): { metho
   throw noSuch('PaymentMethod', id, 'payment_method');
 }
 
+/** Payment method types a request allows; only card can be paid here, so a list without it is refused. */
+export function allowedTypes(input: { allowed_payment_method_types?: string[]; payment_method_types?: string[] }, param: string): string[] | null {
+  const list = input.allowed_payment_method_types ?? input.payment_method_types;
+  if (list === undefined) return null;
+  if (!list.includes('card')) {
+    throw invalidRequest(`This fake can take card payments only; include "card" in ${param}.`, { code: 'parameter_invalid', param });
+  }
+  return list;
+}
+
 /**
- * From API version 2023-08-16 on (from memory), a PaymentIntent without payment_method_types uses
- * automatic payment methods, and confirming it needs a return_url unless redirects are turned off.
- * Enforcing it here keeps code written against the fake valid against the hosted service.
+ * Since API version 2023-08-16 (from memory), a PaymentIntent without an explicit method list uses automatic
+ * payment methods, and confirming it needs a return_url unless redirects are turned off or only cards are
+ * allowed. Enforcing it here keeps code written against the fake valid against the hosted service.
  */
-function requireReturnUrlRule(input: { payment_method_types?: string[]; automatic_payment_methods?: { enabled: boolean; allow_redirects?: string }; return_url?: string }): void {
-  if (input.payment_method_types && input.payment_method_types.length > 0) return;
+function requireReturnUrlRule(allowed: string[] | null, input: { automatic_payment_methods?: { enabled: boolean; allow_redirects?: string }; return_url?: string }): void {
+  if (allowed !== null && allowed.every((type) => type === 'card')) return;
   if (input.automatic_payment_methods?.allow_redirects === 'never') return;
   if (input.return_url) return;
   throw invalidRequest(
-    'This PaymentIntent is configured to accept automatic payment methods. Because some of them might redirect your customer off your page, you must provide a `return_url`. If you do not want redirect-based methods, set `payment_method_types[]=card` or `automatic_payment_methods[allow_redirects]=never`.',
+    'This PaymentIntent is configured to accept automatic payment methods. Because some of them might redirect your customer off your page, you must provide a `return_url`. If you do not want redirect-based methods, set `allowed_payment_method_types[]=card` or `automatic_payment_methods[allow_redirects]=never`.',
     { param: 'return_url' },
   );
 }
@@ -211,6 +225,7 @@ function createPaymentIntent(core: PaymentsCore, raw: Parameters<Route['handle']
   const currency = checkCurrency(input.currency, core.config.minimums);
   checkAmountRange(input.amount, currency);
   checkMinimumCharge(input.amount, currency, core.config.minimums);
+  const allowed = allowedTypes(input, input.allowed_payment_method_types ? 'allowed_payment_method_types' : 'payment_method_types');
   if (input.confirm) {
     if (!input.payment_method) {
       throw invalidRequest("You cannot confirm this PaymentIntent because it's missing a payment method. Update it with a payment_method and confirm again.", {
@@ -218,7 +233,7 @@ function createPaymentIntent(core: PaymentsCore, raw: Parameters<Route['handle']
         param: 'payment_method',
       });
     }
-    requireReturnUrlRule(input);
+    requireReturnUrlRule(allowed, input);
   }
   if (input.payment_method && !TEST_PAYMENT_METHODS[input.payment_method]) {
     throw noSuch('PaymentMethod', input.payment_method, 'payment_method');
@@ -229,7 +244,7 @@ function createPaymentIntent(core: PaymentsCore, raw: Parameters<Route['handle']
     transfer_group: input.transfer_group ?? null,
     metadata: input.metadata ?? {},
     description: input.description ?? null,
-    payment_method_types: input.payment_method_types ?? ['card'],
+    allowed_payment_method_types: allowed,
   });
   if (input.confirm && input.payment_method) return confirmWith(core, intent, input.payment_method, input.expand);
   if (input.payment_method) {

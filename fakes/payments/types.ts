@@ -32,6 +32,7 @@ export interface CheckoutLineItem {
 export interface CheckoutSession {
   id: string;
   object: 'checkout.session';
+  allowed_payment_method_types: string[] | null;
   amount_subtotal: number;
   amount_total: number;
   cancel_url: string | null;
@@ -74,6 +75,7 @@ export interface PaymentError {
 export interface PaymentIntent {
   id: string;
   object: 'payment_intent';
+  allowed_payment_method_types: string[] | null;
   amount: number;
   amount_capturable: number;
   amount_received: number;

@@ -14,7 +14,7 @@ export interface CheckPool {
 export function createCheckPool(opts: { maxThreads?: number } = {}): CheckPool {
   const threads = Math.max(1, opts.maxThreads ?? Math.max(1, availableParallelism() - 1));
   const piscina = new Piscina<StemTask, StemTaskResult>({
-    filename: new URL('./check-worker.mjs', import.meta.url).href,
+    filename: new URL('./check-worker-entry.mjs', import.meta.url).href,
     minThreads: threads,
     maxThreads: threads,
     // Stems come in bursts per delivery; idle workers give their memory back after a minute.

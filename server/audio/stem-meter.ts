@@ -63,7 +63,7 @@ function flushDenormals(state: Float64Array): void {
 }
 
 /** Peak, sums, clipped runs, per-sub-block maxima and waveform buckets in one sweep. */
-function levelPass(x: Float32Array, frames: number, st: ChannelState, subMax: Float32Array, peaks: Float32Array, firstBucket: number, clip: number): void {
+function levelPass(x: Float32Array, frames: number, st: ChannelState, subMax: Float32Array, subMean: Float64Array, peaks: Float32Array, firstBucket: number, clip: number): void {
   let sum = 0;
   let squares = 0;
   let peak = st.peak;
@@ -74,21 +74,37 @@ function levelPass(x: Float32Array, frames: number, st: ChannelState, subMax: Fl
   for (let j = 0, start = TRUE_PEAK_HISTORY; start < end; j++, start += SUB_BLOCK) {
     const stop = start + SUB_BLOCK < end ? start + SUB_BLOCK : end;
     let max = 0;
+    let local = 0;
+    let localSquares = 0;
     for (let i = start; i < stop; i++) {
       const v = x[i];
-      sum += v;
-      squares += v * v;
-      const a = v < 0 ? -v : v;
+      local += v;
+      localSquares += v * v;
+      const a = Math.abs(v);
       if (a > max) max = a;
-      if (a >= clip) run++;
-      else if (run !== 0) {
-        if (run >= CLIP_RUN) {
-          runs++;
-          clipped += run;
-        }
-        run = 0;
-      }
     }
+    // Clipping is only possible where the sub-block reaches full scale: scan just those.
+    if (max >= clip) {
+      for (let i = start; i < stop; i++) {
+        if (Math.abs(x[i]) >= clip) run++;
+        else if (run !== 0) {
+          if (run >= CLIP_RUN) {
+            runs++;
+            clipped += run;
+          }
+          run = 0;
+        }
+      }
+    } else if (run !== 0) {
+      if (run >= CLIP_RUN) {
+        runs++;
+        clipped += run;
+      }
+      run = 0;
+    }
+    squares += localSquares;
+    sum += local;
+    subMean[j] = local / (stop - start);
     subMax[j] = max;
     if (max > peak) peak = max;
     const bucket = firstBucket + ((j * SUB_BLOCK) >> 8);
@@ -105,26 +121,20 @@ function levelPass(x: Float32Array, frames: number, st: ChannelState, subMax: Fl
 interface FilterSet {
   shelf: Biquad;
   highPass: Biquad;
+  /** Designed for the sub-block rate (fs / SUB_BLOCK). */
   rumble: [Biquad, Biquad];
 }
 
-/**
- * K-weighting (two sections) into per-quarter sums, and the rumble low-pass (two sections) into
- * Σy and Σy², in the same loop: four independent recursions keep the CPU's units busy.
- */
-function filterPass(x: Float32Array, frames: number, firstFrame: number, st: ChannelState, f: FilterSet, quarterSums: Float64Array, weight: number, sampleRate: number): void {
+/** K-weighting (two sections) into per-quarter sums of y². */
+function loudnessPass(x: Float32Array, frames: number, firstFrame: number, st: ChannelState, f: FilterSet, quarterSums: Float64Array, weight: number, sampleRate: number): void {
   const { b0: kb0, b1: kb1, b2: kb2, a1: ka1, a2: ka2 } = f.shelf;
   const { b0: hb0, b1: hb1, b2: hb2, a1: ha1, a2: ha2 } = f.highPass;
-  const { b0: rb0, b1: rb1, b2: rb2, a1: ra1, a2: ra2 } = f.rumble[0];
-  const { b0: qb0, b1: qb1, b2: qb2, a1: qa1, a2: qa2 } = f.rumble[1];
   const s = st.filter;
-  let lowSum = 0;
-  let lowSquares = 0;
   let i = 0;
   while (i < frames) {
     const quarterEnd = quarterStart(st.quarter + 1, sampleRate) - firstFrame;
     const stop = quarterEnd < frames ? quarterEnd : frames;
-    let k1 = s[0], k2 = s[1], h1 = s[2], h2 = s[3], r1 = s[4], r2 = s[5], q1 = s[6], q2 = s[7];
+    let k1 = s[0], k2 = s[1], h1 = s[2], h2 = s[3];
     let energy = 0;
     for (let n = TRUE_PEAK_HISTORY + i, last = TRUE_PEAK_HISTORY + stop; n < last; n++) {
       const v = x[n];
@@ -135,21 +145,42 @@ function filterPass(x: Float32Array, frames: number, firstFrame: number, st: Cha
       h1 = hb1 * k - ha1 * h + h2;
       h2 = hb2 * k - ha2 * h;
       energy += h * h;
-      const r = rb0 * v + r1;
-      r1 = rb1 * v - ra1 * r + r2;
-      r2 = rb2 * v - ra2 * r;
-      const q = qb0 * r + q1;
-      q1 = qb1 * r - qa1 * q + q2;
-      q2 = qb2 * r - qa2 * q;
-      lowSum += q;
-      lowSquares += q * q;
     }
-    s[0] = k1; s[1] = k2; s[2] = h1; s[3] = h2; s[4] = r1; s[5] = r2; s[6] = q1; s[7] = q2;
+    s[0] = k1; s[1] = k2; s[2] = h1; s[3] = h2;
     flushDenormals(s);
     quarterSums[st.quarter] += weight * energy;
     if (stop === quarterEnd) st.quarter++;
     i = stop;
   }
+}
+
+/**
+ * Rumble: the 30 Hz low-pass runs on 32-sample means, i.e. at fs/32. A boxcar mean has its nulls at
+ * multiples of fs/32, exactly where anything that would alias down to 0–30 Hz sits, so the decimated
+ * signal keeps the low band (droop at 30 Hz < 0.01 dB at 48 kHz) for 1/32 of the work.
+ */
+function rumblePass(subMean: Float64Array, subBlocks: number, frames: number, st: ChannelState, f: FilterSet): void {
+  const { b0: rb0, b1: rb1, b2: rb2, a1: ra1, a2: ra2 } = f.rumble[0];
+  const { b0: qb0, b1: qb1, b2: qb2, a1: qa1, a2: qa2 } = f.rumble[1];
+  const s = st.filter;
+  let r1 = s[4], r2 = s[5], q1 = s[6], q2 = s[7];
+  let lowSum = 0;
+  let lowSquares = 0;
+  for (let j = 0; j < subBlocks; j++) {
+    const v = subMean[j];
+    const r = rb0 * v + r1;
+    r1 = rb1 * v - ra1 * r + r2;
+    r2 = rb2 * v - ra2 * r;
+    const q = qb0 * r + q1;
+    q1 = qb1 * r - qa1 * q + q2;
+    q2 = qb2 * r - qa2 * q;
+    // Each mean stands for SUB_BLOCK samples (fewer in a final partial sub-block).
+    const weight = j === subBlocks - 1 ? frames - j * SUB_BLOCK : SUB_BLOCK;
+    lowSum += q * weight;
+    lowSquares += q * q * weight;
+  }
+  s[4] = r1; s[5] = r2; s[6] = q1; s[7] = q2;
+  flushDenormals(s);
   st.lowSum += lowSum;
   st.lowSquares += lowSquares;
 }
@@ -162,13 +193,15 @@ export class StemMeter {
   private quarterSums: Float64Array;
   private readonly peaks: Float32Array;
   private subMax = new Float32Array(0);
+  private subMean = new Float64Array(0);
   private framesSeen = 0;
 
   constructor(config: StemMeterConfig) {
     this.config = config;
     this.states = Array.from({ length: config.channels }, () => new ChannelState(config.sampleRate));
     this.weights = channelWeights(config.channels, config.channelMask);
-    const rumble = butterworthLowPass(config.sampleRate, RUMBLE_CUTOFF_HZ, RUMBLE_ORDER);
+    const subRate = config.sampleRate / SUB_BLOCK;
+    const rumble = butterworthLowPass(subRate, Math.min(RUMBLE_CUTOFF_HZ, subRate * 0.4), RUMBLE_ORDER);
     this.filters = { shelf: kWeightingShelf(config.sampleRate), highPass: kWeightingHighPass(config.sampleRate), rumble: [rumble[0], rumble[1]] };
     this.quarterSums = new Float64Array(Math.ceil((config.frames * 10) / config.sampleRate) + 2);
     this.peaks = new Float32Array(Math.ceil(config.frames / PEAK_BUCKET) + 1);
@@ -178,15 +211,19 @@ export class StemMeter {
   process(buffers: Float32Array[], frames: number): void {
     if (frames <= 0) return;
     const subBlocks = Math.ceil(frames / SUB_BLOCK);
-    if (this.subMax.length < subBlocks) this.subMax = new Float32Array(subBlocks);
+    if (this.subMax.length < subBlocks) {
+      this.subMax = new Float32Array(subBlocks);
+      this.subMean = new Float64Array(subBlocks);
+    }
     this.ensureQuarterRoom(frames);
     const firstBucket = Math.floor(this.framesSeen / PEAK_BUCKET);
     const { sampleRate, clipThreshold } = this.config;
     for (let c = 0; c < this.states.length; c++) {
       const st = this.states[c];
       const x = buffers[c];
-      levelPass(x, frames, st, this.subMax, this.peaks, firstBucket, clipThreshold);
-      filterPass(x, frames, this.framesSeen, st, this.filters, this.quarterSums, this.weights[c], sampleRate);
+      levelPass(x, frames, st, this.subMax, this.subMean, this.peaks, firstBucket, clipThreshold);
+      loudnessPass(x, frames, this.framesSeen, st, this.filters, this.quarterSums, this.weights[c], sampleRate);
+      rumblePass(this.subMean, subBlocks, frames, st, this.filters);
       st.truePeak.process(x, frames, this.subMax, st.peak);
     }
     this.framesSeen += frames;

@@ -51,6 +51,7 @@ export interface WavInfo {
 
 const MAX_CHUNKS = 4096;
 const MAX_SANE_RATE = 10_000_000;
+const MIN_RATE = 1000;
 const MAX_CHANNELS = 1024;
 const U32_UNSET = 0xffffffff;
 // The standard KSDATAFORMAT GUID tail shared by PCM and IEEE float sub-formats (bytes 2..15).
@@ -138,6 +139,8 @@ export function parseFmt(body: Buffer): FmtInfo {
   if (channels === 0) throw new WavError('malformed', 'malformed: fmt says 0 channels');
   if (channels > MAX_CHANNELS) throw new WavError('unsupported', `unsupported: ${channels} channels`);
   if (sampleRate === 0 || sampleRate > MAX_SANE_RATE) throw new WavError('malformed', `malformed: sample rate ${sampleRate} Hz`);
+  // Below this no audio format exists, and per-100 ms bookkeeping would grow with the file.
+  if (sampleRate < MIN_RATE) throw new WavError('unsupported', `unsupported: sample rate ${sampleRate} Hz`);
   const widths = encoding === 'pcm' ? [8, 16, 24, 32] : [32, 64];
   if (!widths.includes(bitsPerSample)) {
     throw new WavError('unsupported', `unsupported encoding (${encoding === 'pcm' ? 'PCM' : 'float'} ${bitsPerSample}-bit)`);

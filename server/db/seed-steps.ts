@@ -1,4 +1,5 @@
 import type { AppContext } from '../app';
+import { profilesSeedStep } from '../features/profiles/profiles.seed';
 
 /** What the seed knows after creating the demo accounts: demo key (e.g. 'mara') → user id. */
 export type SeedState = { userIds: Record<string, string>; [k: string]: unknown };
@@ -9,4 +10,5 @@ export type SeedState = { userIds: Record<string, string>; [k: string]: unknown 
  */
 export type SeedStep = { name: string; run(ctx: AppContext, state: SeedState): Promise<void> | void };
 
-export const seedSteps: SeedStep[] = [];
+// Profiles first: briefs, quotes and threads of later steps point at drummers with profiles and reels.
+export const seedSteps: SeedStep[] = [profilesSeedStep];

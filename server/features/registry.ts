@@ -1,5 +1,13 @@
 import type { Router } from 'express';
 import type { AppContext } from '../app';
+import { briefsRoutes } from './briefs/briefs.routes';
+import { quotesRoutes } from './quotes/quotes.routes';
+import { bookingsRoutes } from './bookings/bookings.routes';
+import { profilesRoutes } from './profiles/profiles.routes';
+import { reelsRoutes } from './reels/reels.routes';
+import { searchRoutes } from './search/search.routes';
+import { messagesRoutes } from './messages/messages.routes';
+import { notificationsRoutes } from './notifications/notifications.routes';
 
 /**
  * Each feature contributes one router factory. Add a line here when a feature gets routes;
@@ -7,4 +15,8 @@ import type { AppContext } from '../app';
  */
 export type FeatureRoutes = (ctx: AppContext) => Router;
 
-export const featureRoutes: FeatureRoutes[] = [];
+export const featureRoutes: FeatureRoutes[] = [
+  briefsRoutes, quotesRoutes, bookingsRoutes,
+  profilesRoutes, reelsRoutes, searchRoutes,
+  messagesRoutes, notificationsRoutes,
+];

@@ -168,6 +168,15 @@ describe('axial modes', () => {
     expect(length1?.coincidentWith).toEqual([]);
   });
 
+  it('notes each group of coincident modes once', () => {
+    // 6 × 5 × 3 m: length 2 and height 1 meet at 57.2 Hz, length 4 and height 2 at 114.3 Hz.
+    const notes = computeAcoustics(paintedBlockRoom()).notes.filter((n) => n.startsWith('Modes of'));
+    expect(notes).toEqual([
+      'Modes of the length and height fall together near 57 Hz: notes around there may boom.',
+      'Modes of the length and height fall together near 114 Hz: notes around there may boom.',
+    ]);
+  });
+
   it('uses the lower mode as the base of the 5 % tolerance', () => {
     const flagged = flagCoincidences([
       { hz: 100, axis: 'length', order: 1 },

@@ -380,7 +380,9 @@ function roomNotes(modes: readonly ModeResult[], schroederHz: number, lowBandRt6
   const notes = [
     `Below about ${Math.round(schroederHz)} Hz the room's resonances (modes) shape the low end more than its reverberation does.`,
   ];
-  const coincident = modes.filter((m) => m.coincidentWith.length > 0 && m.coincidentWith.every((o) => o.hz >= m.hz));
+  // One note per group: a mode speaks for its partners unless one of them comes earlier in the (sorted) list.
+  const indexOf = (ref: ModeRef) => modes.findIndex((m) => m.axis === ref.axis && m.order === ref.order);
+  const coincident = modes.filter((m, i) => m.coincidentWith.length > 0 && m.coincidentWith.every((o) => indexOf(o) > i));
   for (const m of coincident) {
     notes.push(`Modes of the ${[m.axis, ...m.coincidentWith.map((o) => o.axis)].join(' and ')} fall together near ${Math.round(m.hz)} Hz: notes around there may boom.`);
   }

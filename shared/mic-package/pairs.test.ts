@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { delayForDistance } from './calculators';
-import { expectInverted, facesOpposite, packagePairs } from './pairs';
+import { deliveryExpectPairs, expectInverted, facesOpposite, packagePairs } from './pairs';
 import { channelsFromTemplate, defaultChannel } from './templates';
 
 describe('packagePairs', () => {
@@ -64,5 +64,20 @@ describe('facesOpposite', () => {
     expect(facesOpposite('kick_axis', 'kick_axis')).toBe(false);
     expect(facesOpposite('kick_axis', 'down')).toBeNull();
     expect(facesOpposite('unknown', 'down')).toBeNull();
+  });
+});
+
+describe('deliveryExpectPairs', () => {
+  it('hands the delivery check part-id pairs, without an expectation where there is none', () => {
+    const channels = channelsFromTemplate('twelve_channel').map((c) => (c.source === 'snare_bottom' ? { ...c, polarityInvert: false } : c));
+    const expected = deliveryExpectPairs(packagePairs(channels));
+    expect(expected).toContainEqual({ a: 'snare_top', b: 'snare_bottom', expectInverted: true });
+    expect(expected).toContainEqual({ a: 'kick_in', b: 'overhead_l' });
+    expect(expected).toContainEqual({ a: 'snare_bottom', b: 'overhead_r', expectInverted: true });
+  });
+
+  it('collapses two channels on the same source into one pair', () => {
+    const channels = [defaultChannel('snare_top', 1), defaultChannel('snare_top', 2), defaultChannel('snare_bottom', 3)];
+    expect(deliveryExpectPairs(packagePairs(channels))).toEqual([{ a: 'snare_top', b: 'snare_bottom', expectInverted: false }]);
   });
 });

@@ -97,3 +97,27 @@ function pairReason(a: MicChannel, b: MicChannel, expected: boolean | null): str
   const outcome = expected ? `so the ${nameB} stem should read as inverted against the ${nameA}` : 'so the two stems should read as the same polarity';
   return `The ${nameA} and ${nameB} mics ${facing} and ${switches}, ${outcome}.`;
 }
+
+/** What the delivery check needs from a booking's package: pairs of part ids (stem parts = source ids). */
+export interface DeliveryExpectPair {
+  a: SourceId;
+  b: SourceId;
+  /** Left out where the package gives no dependable expectation (a kick against the overheads). */
+  expectInverted?: boolean;
+}
+
+/**
+ * The package's pairs as the delivery check's `pairs` input. Stems are named by part, not channel, so two
+ * channels on the same source collapse into one pair (the first one listed wins).
+ */
+export function deliveryExpectPairs(pairs: readonly PackagePair[]): DeliveryExpectPair[] {
+  const seen = new Set<string>();
+  const out: DeliveryExpectPair[] = [];
+  for (const p of pairs) {
+    const key = `${p.aSource}|${p.bSource}`;
+    if (seen.has(key) || p.aSource === p.bSource) continue;
+    seen.add(key);
+    out.push(p.expectInverted === null ? { a: p.aSource, b: p.bSource } : { a: p.aSource, b: p.bSource, expectInverted: p.expectInverted });
+  }
+  return out;
+}

@@ -4,6 +4,7 @@
 
 import { z } from 'zod';
 import { MIC_TYPES, POLAR_PATTERNS, SOURCE_IDS } from '../mic-package/sources';
+import type { DeliveryExpectPair, PackagePair } from '../mic-package/pairs';
 import { MAX_AMOUNT_MINOR, ROOM_INPUT_LIMITS } from './rooms';
 
 export const CHANNEL_DISTANCE_LIMITS_CM = { min: 0.5, max: 1000 } as const;
@@ -96,3 +97,43 @@ export function micPackageInputSchemaForRoom(room: { inputs: number }) {
     for (const issue of validatePackageAgainstRoom(pkg, room)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
   });
 }
+
+// ---- Response shapes ----
+
+export type MicPackageView = {
+  id: string;
+  roomId: string;
+  roomName: string;
+  roomTown: string;
+  roomInputs: number;
+  engineerId: string;
+  engineerName: string;
+  name: string;
+  priceMinor: number;
+  currency: string;
+  channels: MicChannelInput[];
+  /** Related channels and the polarity the delivery check should expect between their stems. */
+  pairs: PackagePair[];
+  /** Removed by the engineer: still readable from quotes and bookings that name it, no longer offered. */
+  archived: boolean;
+  mine: boolean;
+  createdAt: string;
+  updatedAt: string;
+};
+
+export type MicPackageList = { items: MicPackageView[]; total: number };
+
+/**
+ * What a booking keeps of the package its quote named (`bookings.inputList`), frozen at acceptance:
+ * the delivery check reads `checkPairs` (part ids = source ids) and the upload form pre-fills stem names
+ * from `channels`.
+ */
+export type BookingInputList = {
+  packageId: string;
+  packageName: string;
+  roomId: string;
+  roomName: string;
+  channels: MicChannelInput[];
+  pairs: PackagePair[];
+  checkPairs: DeliveryExpectPair[];
+};

@@ -170,10 +170,10 @@ export type EngineerProfileFormValues = z.input<typeof engineerProfileInputSchem
 
 // ---- Time zone bands (working-hours neighbourhoods for the search filter) ----
 
-/** Inclusive ranges of the zone's standard-time UTC offset, in minutes; together they cover −12 h…+14 h. */
+/** Inclusive ranges of the zone's standard-time UTC offset, in minutes; together they cover −12 h…+14 h without gaps. */
 export const TZ_BANDS = {
-  americas: { label: 'Americas (UTC−12 to −2)', minMinutes: -720, maxMinutes: -120 },
-  'europe-africa': { label: 'Europe & Africa (UTC−1 to +3:30)', minMinutes: -60, maxMinutes: 210 },
+  americas: { label: 'Americas (UTC−12 to −2)', minMinutes: -720, maxMinutes: -61 },
+  'europe-africa': { label: 'Europe & Africa (UTC−1 to +3:30)', minMinutes: -60, maxMinutes: 239 },
   'asia-pacific': { label: 'Asia & Pacific (UTC+4 to +14)', minMinutes: 240, maxMinutes: 840 },
 } as const;
 export type TzBand = keyof typeof TZ_BANDS;

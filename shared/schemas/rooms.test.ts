@@ -100,18 +100,26 @@ describe('roomUpdateInputSchema', () => {
 });
 
 describe('roomSearchQuerySchema', () => {
-  it('reads numbers from a query string and applies paging defaults', () => {
-    expect(roomSearchQuerySchema.parse({ town: 'Testing Town', maxRt60Sec: '0.5', minInputs: '12' })).toEqual({
+  it('reads numbers from a query string, drops empty keys and applies paging defaults', () => {
+    expect(roomSearchQuerySchema.parse({ town: 'Testing Town', rtMax: '0.5', minInputs: '12', q: '', minVolume: '' })).toEqual({
       town: 'Testing Town',
-      maxRt60Sec: 0.5,
+      rtMax: 0.5,
       minInputs: 12,
-      limit: 20,
-      offset: 0,
+      page: 1,
+      pageSize: 20,
     });
   });
 
-  it('refuses an inverted range', () => {
-    const result = roomSearchQuerySchema.safeParse({ minRt60Sec: '0.8', maxRt60Sec: '0.3' });
-    expect(result.error?.issues.map((i) => i.path.join('.'))).toEqual(['maxRt60Sec']);
+  it('refuses an inverted range with the error on the upper bound', () => {
+    const result = roomSearchQuerySchema.safeParse({ rtMin: '0.8', rtMax: '0.3' });
+    expect(result.error?.issues.map((i) => i.path.join('.'))).toEqual(['rtMax']);
+  });
+
+  it('asks for the currency of a highest day rate and refuses an unknown time zone band', () => {
+    const noCurrency = roomSearchQuerySchema.safeParse({ maxDayRate: '300' });
+    expect(noCurrency.error?.issues.map((i) => i.path.join('.'))).toEqual(['currency']);
+    const badBand = roomSearchQuerySchema.safeParse({ tzBand: 'moon' });
+    expect(badBand.error?.issues.map((i) => i.path.join('.'))).toEqual(['tzBand']);
+    expect(roomSearchQuerySchema.parse({ maxDayRate: '300', currency: 'EUR' })).toMatchObject({ maxDayRate: 300, currency: 'EUR' });
   });
 });

@@ -12,6 +12,7 @@ import {
   SURFACE_IDS,
   type RoomGeometry,
 } from '../acoustics/room-acoustics';
+import { TZ_BAND_IDS, type TzBand } from './profiles';
 
 /** Sane bounds for a room a drum kit is recorded in, metres: anything outside is a typing or unit mistake. */
 export const ROOM_DIMENSION_LIMITS_M = {
@@ -188,33 +189,132 @@ function boundsMessage(field: 'length' | 'width' | 'height', unit: 'm' | 'ft'): 
   return `${name} must be between ${metresToFeet(min).toFixed(1)} and ${metresToFeet(max).toFixed(1)} ft`;
 }
 
-const queryNumber = z.coerce.number({ error: 'Enter a number' }).refine(Number.isFinite, 'Enter a number');
+// Query strings are strings: an empty value means "no filter", so a search form can always send every key.
+const emptyToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v);
+const optionalQuery = <T extends z.ZodType>(schema: T) => z.preprocess(emptyToUndefined, schema.optional());
+const queryNumber = (min: number, max: number) =>
+  z.coerce.number({ error: 'Enter a number' }).refine(Number.isFinite, 'Enter a number').pipe(z.number().min(min, `At least ${min}`).max(max, `At most ${max}`));
+
+export const ROOM_SEARCH_PAGE_SIZE = 20;
 
 /**
- * Filters for the public room search (`GET /api/rooms?q=…`), parsed from the query string (hence coerce).
- * Size is the floor area; reverberation is the mid-band RT60 of the recommended method.
+ * Filters for the public room search (`GET /api/rooms?q=&town=&tzBand=&minVolume=&rtMin=&rtMax=&maxDayRate=&minInputs=&page=`),
+ * parsed from the query string (hence coerce). Size is the volume in m³; reverberation is the mid-band RT60
+ * (500 Hz–1 kHz) by the recommended formula; the day rate is in the currency's major unit, as a person types it.
  */
 export const roomSearchQuerySchema = z
   .object({
-    q: z.string().trim().max(200).optional(),
-    town: z.string().trim().max(120).optional(),
-    timeZone: timeZoneSchema.optional(),
-    minFloorAreaM2: queryNumber.pipe(z.number().min(0)).optional(),
-    maxFloorAreaM2: queryNumber.pipe(z.number().min(0)).optional(),
-    minRt60Sec: queryNumber.pipe(z.number().min(0).max(10)).optional(),
-    maxRt60Sec: queryNumber.pipe(z.number().min(0).max(10)).optional(),
-    maxDayRateMinor: queryNumber.pipe(z.number().int().min(0)).optional(),
-    currency: currencySchema.optional(),
-    minInputs: queryNumber.pipe(z.number().int().min(1).max(ROOM_INPUT_LIMITS.max)).optional(),
-    limit: queryNumber.pipe(z.number().int().min(1).max(100)).default(20),
-    offset: queryNumber.pipe(z.number().int().min(0)).default(0),
+    // Long pasted text is cut, never refused: a search box should not answer with an error.
+    q: optionalQuery(z.string().transform((s) => s.slice(0, 200).trim())),
+    town: optionalQuery(z.string().transform((s) => s.slice(0, 120).trim())),
+    tzBand: optionalQuery(z.enum(TZ_BAND_IDS as [TzBand, ...TzBand[]], { error: 'Pick a time zone band from the list' })),
+    minVolume: optionalQuery(queryNumber(0, 100_000)),
+    maxVolume: optionalQuery(queryNumber(0, 100_000)),
+    rtMin: optionalQuery(queryNumber(0, 10)),
+    rtMax: optionalQuery(queryNumber(0, 10)),
+    maxDayRate: optionalQuery(queryNumber(0, 999_999)),
+    currency: optionalQuery(currencySchema),
+    minInputs: optionalQuery(queryNumber(ROOM_INPUT_LIMITS.min, ROOM_INPUT_LIMITS.max).pipe(z.number().int('Inputs are a whole number'))),
+    page: z.preprocess(emptyToUndefined, z.coerce.number().int().min(1).max(500).default(1)),
+    pageSize: z.preprocess(emptyToUndefined, z.coerce.number().int().min(1).max(50).default(ROOM_SEARCH_PAGE_SIZE)),
   })
   .superRefine((q, ctx) => {
-    if (q.minFloorAreaM2 !== undefined && q.maxFloorAreaM2 !== undefined && q.minFloorAreaM2 > q.maxFloorAreaM2) {
-      ctx.addIssue({ code: 'custom', path: ['maxFloorAreaM2'], message: 'The largest size is smaller than the smallest' });
+    if (q.minVolume !== undefined && q.maxVolume !== undefined && q.minVolume > q.maxVolume) {
+      ctx.addIssue({ code: 'custom', path: ['maxVolume'], message: 'The largest size is smaller than the smallest' });
     }
-    if (q.minRt60Sec !== undefined && q.maxRt60Sec !== undefined && q.minRt60Sec > q.maxRt60Sec) {
-      ctx.addIssue({ code: 'custom', path: ['maxRt60Sec'], message: 'The longest reverberation is shorter than the shortest' });
+    if (q.rtMin !== undefined && q.rtMax !== undefined && q.rtMin > q.rtMax) {
+      ctx.addIssue({ code: 'custom', path: ['rtMax'], message: 'The longest reverberation is shorter than the shortest' });
+    }
+    // Rates only compare within one currency (DESIGN.md, Money).
+    if (q.maxDayRate !== undefined && q.currency === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['currency'], message: 'Pick the currency of the highest day rate' });
     }
   });
 export type RoomSearchQuery = z.infer<typeof roomSearchQuerySchema>;
+
+// ---- Calendar and photos ----
+
+/** How far ahead an engineer can block dates; a longer calendar is a typing mistake. */
+export const BLOCKED_DATES_MAX = 400;
+
+const calendarDateSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-14')
+  .refine((d) => {
+    const [y, m, day] = d.split('-').map(Number);
+    const date = new Date(Date.UTC(y, m - 1, day));
+    return date.getUTCFullYear() === y && date.getUTCMonth() === m - 1 && date.getUTCDate() === day;
+  }, 'That date does not exist');
+
+/** The whole set of blocked dates (calendar dates in the room's time zone); the server replaces the stored set. */
+export const blockedDatesInputSchema = z.object({
+  dates: z
+    .array(calendarDateSchema)
+    .max(BLOCKED_DATES_MAX, `At most ${BLOCKED_DATES_MAX} blocked dates`)
+    .transform((dates) => [...new Set(dates)].sort()),
+});
+export type BlockedDatesInput = z.infer<typeof blockedDatesInputSchema>;
+
+export const ROOM_PHOTO_MAX_BYTES = 10 * 1024 * 1024;
+export const ROOM_PHOTO_MAX_COUNT = 12;
+/** Longest side of the stored photo and of its thumbnail, px (the server re-encodes both; the original is not kept). */
+export const ROOM_PHOTO_SIZES = { large: 1600, thumb: 400 } as const;
+
+export const roomPhotoFieldsInputSchema = z.object({
+  caption: z.string().trim().max(200, 'Keep the caption under 200 characters').default(''),
+});
+
+// ---- Response shapes ----
+
+export type RoomPhotoView = { id: string; caption: string; width: number; height: number; url: string; thumbUrl: string };
+
+export type RoomSummary = {
+  id: string;
+  engineerId: string;
+  engineerName: string;
+  name: string;
+  town: string;
+  timeZone: string;
+  dayRateMinor: number;
+  halfDayRateMinor: number;
+  currency: string;
+  inputs: number;
+  volumeM3: number;
+  floorAreaM2: number;
+  /** Mid-band (500 Hz–1 kHz) RT60 by the recommended formula, seconds. */
+  midRt60Sec: number;
+  reading: RoomReadingId;
+  thumbUrl: string | null;
+  packageCount: number;
+};
+
+export type RoomReadingId = 'tight' | 'controlled' | 'lively' | 'very_live';
+
+export type RoomView = RoomSummary &
+  RoomInput & {
+    photos: RoomPhotoView[];
+    blockedDates: string[];
+    /** The reader owns it and may edit. */
+    mine: boolean;
+    createdAt: string;
+    updatedAt: string;
+  };
+
+export type RoomSearchResult = { items: RoomSummary[]; total: number };
+
+/** `GET /api/rooms/:id/acoustics`: the fixed shape of DESIGN.md plus what the client needs to explain it. */
+export type RoomAcousticsView = {
+  bands: { hz: number; sabineSec: number; eyringSec: number; averageAbsorption: number }[];
+  modes: { hz: number; axis: 'length' | 'width' | 'height'; order: number; coincidentWith: { hz: number; axis: 'length' | 'width' | 'height'; order: number }[] }[];
+  schroederHz: number;
+  reading: RoomReadingId;
+  readingText: string;
+  readingThresholds: { reading: RoomReadingId; belowSec: number | null }[];
+  recommended: 'sabine' | 'eyring';
+  recommendedReason: string;
+  midBandRt60Sec: number;
+  volumeM3: number;
+  surfaceM2: number;
+  speedOfSoundMs: number;
+  notes: string[];
+};

@@ -77,6 +77,12 @@ export function encodeSamples(channels: Float32Array[], encoding: 'pcm' | 'float
   const n = channels.length;
   const bytes = bits / 8;
   const out = Buffer.alloc(frames * n * bytes);
+  if (encoding === 'float' && bits === 32) {
+    // Fast path: interleave into a Float32Array over the output bytes (little-endian platform).
+    const view = new Float32Array(out.buffer, out.byteOffset, frames * n);
+    for (let c = 0; c < n; c++) for (let i = 0; i < frames; i++) view[i * n + c] = channels[c][i];
+    return out;
+  }
   const scale = 2 ** (validBits - 1);
   const shift = 2 ** (bits - validBits);
   for (let i = 0; i < frames; i++) {
@@ -320,12 +326,12 @@ export function renderKit(opts: { sampleRate: number; seconds: number; tempo: nu
   return [
     mic('Kick In.wav', [{ voice: 'kick', gain: 0.7, delaySamples: 0 }, { voice: 'snare', gain: 0.05, delaySamples: ms(2) }], 0),
     mic('Kick Out.wav', [{ voice: 'kick', gain: 0.6, delaySamples: ms(0.9) }, { voice: 'snare', gain: 0.06, delaySamples: ms(2.5) }], 1),
-    mic('Snare Top.wav', [{ voice: 'snare', gain: 0.8, delaySamples: 0 }, { voice: 'hat', gain: 0.1, delaySamples: ms(0.6) }, { voice: 'kick', gain: 0.08, delaySamples: ms(1.5) }], 2),
+    mic('Snare Top.wav', [{ voice: 'snare', gain: 0.6, delaySamples: 0 }, { voice: 'hat', gain: 0.1, delaySamples: ms(0.6) }, { voice: 'kick', gain: 0.08, delaySamples: ms(1.5) }], 2),
     mic('Snare Bottom.wav', [{ voice: 'snare', gain: 0.6, delaySamples: ms(0.4), polarity: -1 }, { voice: 'kick', gain: 0.1, delaySamples: ms(1.2) }], 3),
     mic('HH.wav', [{ voice: 'hat', gain: 0.8, delaySamples: 0 }, { voice: 'snare', gain: 0.15, delaySamples: ms(0.7) }], 4),
-    mic('Tom 1.wav', [{ voice: 'tom', index: 0, gain: 0.8, delaySamples: 0 }, { voice: 'snare', gain: 0.1, delaySamples: ms(1) }], 5),
-    mic('Tom 2.wav', [{ voice: 'tom', index: 1, gain: 0.8, delaySamples: 0 }, { voice: 'snare', gain: 0.1, delaySamples: ms(1.1) }], 6),
-    mic('FT.wav', [{ voice: 'tom', index: 2, gain: 0.85, delaySamples: 0 }, { voice: 'snare', gain: 0.08, delaySamples: ms(1.4) }], 7),
+    mic('Tom 1.wav', [{ voice: 'tom', index: 0, gain: 0.6, delaySamples: 0 }, { voice: 'snare', gain: 0.1, delaySamples: ms(1) }], 5),
+    mic('Tom 2.wav', [{ voice: 'tom', index: 1, gain: 0.6, delaySamples: 0 }, { voice: 'snare', gain: 0.1, delaySamples: ms(1.1) }], 6),
+    mic('FT.wav', [{ voice: 'tom', index: 2, gain: 0.6, delaySamples: 0 }, { voice: 'snare', gain: 0.08, delaySamples: ms(1.4) }], 7),
     mic('OH L.wav', bleed(0.35, 3), 8),
     mic('OH R.wav', bleed(0.3, 3.4), 9),
     mic('Room L.wav', bleed(0.2, 14), 10),

@@ -4,3 +4,4 @@ export * from './jobs';
 export * from './profiles';
 export * from './briefs';
 export * from './messages';
+export * from './rooms';

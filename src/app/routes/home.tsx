@@ -59,7 +59,7 @@ const STEPS = [
   { title: 'Accept', text: 'The money is released to the drummer and engineer.' },
 ];
 
-function SideCard({ side }: { side: Side }) {
+function SideCard({ side, signedIn }: { side: Side; signedIn: boolean }) {
   return (
     <Card className="flex flex-col">
       <h2 id={`${side.id}-title`} className="text-2xl font-bold">
@@ -71,14 +71,17 @@ function SideCard({ side }: { side: Side }) {
           <li key={i}>{point}</li>
         ))}
       </ul>
-      <ButtonLink to={side.cta.to} variant="secondary" className="mt-6 self-start">
-        {side.cta.label}
-      </ButtonLink>
+      {/* Signed-in people get their own next step in the hero instead of a sign-up pitch. */}
+      {signedIn ? null : (
+        <ButtonLink to={side.cta.to} variant="secondary" className="mt-6 self-start">
+          {side.cta.label}
+        </ButtonLink>
+      )}
     </Card>
   );
 }
 
-/** Signed-in people get a shortcut to their own next step instead of the sign-up pitch. */
+/** The hero's calls to action: join for newcomers, the own next step for people signed in. */
 function NextStepForMe() {
   const { user } = useMe();
   const canBrief = useCan('create:brief:own');
@@ -133,7 +136,7 @@ export function Component() {
         </h2>
         <div className="grid gap-6 md:grid-cols-3">
           {SIDES.map((side) => (
-            <SideCard key={side.id} side={side} />
+            <SideCard key={side.id} side={side} signedIn={user !== null} />
           ))}
         </div>
       </section>

@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from 'react';
+import { useId, useState } from 'react';
 import { Link, NavLink, useLocation } from 'react-router-dom';
 import type { MeUser } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
@@ -75,14 +75,13 @@ function MobileMenu({ id, items, user }: { id: string; items: NavItem[]; user: M
 
 export function AppHeader({ user }: { user: MeUser | null }) {
   const items = navigationFor(user ? user.roles : null);
-  const [menuOpen, setMenuOpen] = useState(false);
   const menuId = useId();
-  const location = useLocation();
-
-  // A followed link closes the small-screen menu, so the new page is not hidden behind it.
-  useEffect(() => {
-    setMenuOpen(false);
-  }, [location.pathname]);
+  const { pathname } = useLocation();
+  // The small-screen menu belongs to the page it was opened on: following a link closes it, so the new
+  // page is not hidden behind it (no effect needed, the path is part of the state).
+  const [menuOpenOn, setMenuOpenOn] = useState<string | null>(null);
+  const menuOpen = menuOpenOn === pathname;
+  const toggleMenu = () => setMenuOpenOn(menuOpen ? null : pathname);
 
   return (
     <header className="bg-brand-700 text-white">
@@ -108,7 +107,7 @@ export function AppHeader({ user }: { user: MeUser | null }) {
             className="ml-1 flex size-10 items-center justify-center rounded-lg text-white hover:bg-brand-800 lg:hidden"
             aria-expanded={menuOpen}
             aria-controls={menuId}
-            onClick={() => setMenuOpen((v) => !v)}
+            onClick={toggleMenu}
           >
             <svg viewBox="0 0 24 24" className="size-6" aria-hidden="true">
               {menuOpen ? (

@@ -12,9 +12,11 @@ type CheckboxGroupProps = {
   /** Props for every box, e.g. react-hook-form's register('roles'): one field name, an array of values. */
   inputProps: InputHTMLAttributes<HTMLInputElement>;
   className?: string;
+  /** Side by side from small screens up (default), or one under the other in narrow columns. */
+  layout?: 'row' | 'stack';
 };
 
-export function CheckboxGroup({ legend, hint, error, options, inputProps, className }: CheckboxGroupProps) {
+export function CheckboxGroup({ legend, hint, error, options, inputProps, className, layout = 'row' }: CheckboxGroupProps) {
   const id = useId();
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
@@ -30,7 +32,7 @@ export function CheckboxGroup({ legend, hint, error, options, inputProps, classN
           {hint}
         </p>
       ) : null}
-      <div className="grid gap-2 sm:grid-cols-3">
+      <div className={cx('grid gap-2', layout === 'row' && 'sm:grid-cols-3')}>
         {options.map((option) => (
           <label
             key={option.value}

@@ -29,7 +29,7 @@ export async function startTestApp(opts: { seed?: boolean; limits?: Partial<Limi
     async waitForMail(to, subject) {
       const deadline = Date.now() + 10_000;
       while (Date.now() < deadline) {
-        const found = running.mail?.messages().find((m) => m.to.includes(to) && (!subject || subject.test(m.subject)));
+        const found = running.mail?.messages().find((m) => [...m.to, ...(m.envelopeTo ?? [])].some((a) => a.toLowerCase() === to.toLowerCase()) && (!subject || subject.test(m.subject)));
         if (found) return found;
         await new Promise((r) => setTimeout(r, 50));
       }

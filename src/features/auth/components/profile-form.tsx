@@ -45,6 +45,7 @@ export function ProfileForm({ user }: { user: MeUser }) {
       <TextField label="Display name" autoComplete="nickname" error={errors.displayName?.message} {...register('displayName')} />
       <CheckboxGroup
         legend="Roles"
+        layout="stack"
         hint="What you do on Kitlane. Keep at least one."
         options={ROLE_OPTIONS}
         error={errors.roles?.message ?? errors.roles?.root?.message}

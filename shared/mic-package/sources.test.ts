@@ -1,0 +1,23 @@
+import { describe, expect, it } from 'vitest';
+import { DRUM_PARTS, PART_IDS } from '../stems/parts';
+import { isCardioidFamily, listSources, SOURCE_IDS, SOURCES } from './sources';
+
+describe('mic-package sources', () => {
+  it('uses the same ids as the stem parts, so an input list can name the stems', () => {
+    expect([...SOURCE_IDS]).toEqual([...PART_IDS]);
+  });
+
+  it('agrees with the stem parts on role and facing, which decide the expected polarity', () => {
+    for (const part of DRUM_PARTS) {
+      expect({ role: SOURCES[part.id].role, facing: SOURCES[part.id].facing }, part.id).toEqual({ role: part.role, facing: part.facing });
+    }
+  });
+
+  it('lists every source once, in the order of SOURCE_IDS', () => {
+    expect(listSources().map((s) => s.id)).toEqual([...SOURCE_IDS]);
+  });
+
+  it('counts cardioid, supercardioid and hypercardioid as one family', () => {
+    expect(['cardioid', 'supercardioid', 'hypercardioid', 'figure_eight', 'omni'].map((p) => isCardioidFamily(p as never))).toEqual([true, true, true, false, false]);
+  });
+});

@@ -1,0 +1,82 @@
+// @vitest-environment jsdom
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { cleanup, render, screen } from '@testing-library/react';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { fakeServer, testQueryClient } from '@/testing/render-with-providers';
+import { createRoutes } from './router';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const drummer = { id: 'u1', email: 'rosa@kitlane.test', displayName: 'Rim Shot Rosa', roles: ['drummer'], emailVerified: true, timeZone: 'UTC' };
+
+function startAt(path: string, user: typeof drummer | null) {
+  fakeServer([
+    { method: 'GET', path: '/api/me', status: 200, body: { user } },
+    { method: 'GET', path: '/api/config', status: 200, body: { mailInboxUrl: null } },
+  ]);
+  const queryClient = testQueryClient();
+  const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
+  render(
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  return router;
+}
+
+async function h1(): Promise<string> {
+  // Generous: the first lazy page import is transformed on demand by Vite in the test run.
+  return (await screen.findByRole('heading', { level: 1 }, { timeout: 5000 })).textContent ?? '';
+}
+
+describe('app routes', () => {
+  it('sends a signed-out visitor of the account page to sign in, with the way back', async () => {
+    const router = startAt('/account', null);
+    expect(await h1()).toBe('Sign in');
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe('?next=%2Faccount');
+  });
+
+  it('shows the account page to a signed-in person', async () => {
+    startAt('/account', drummer);
+    expect(await h1()).toBe('Account');
+    expect(screen.getByText('Signed in as Rim Shot Rosa')).toBeTruthy();
+  });
+
+  it('sends a signed-in person away from the sign-up page', async () => {
+    const router = startAt('/sign-up', drummer);
+    expect(await h1()).toBe('Welcome back, Rim Shot Rosa.');
+    expect(router.state.location.pathname).toBe('/');
+  });
+
+  it('shows the 404 page inside the shell for an unknown address', async () => {
+    startAt('/no/such/page', null);
+    expect(await h1()).toBe('Page not found');
+    expect(screen.getByRole('banner')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Back to the home page' }).getAttribute('href')).toBe('/');
+  });
+
+  it('renders a not-yet-built page as the coming-soon stub with its own title', async () => {
+    startAt('/quotes', drummer);
+    expect(await h1()).toBe('My quotes');
+    expect(screen.getByText('Coming soon in this build')).toBeTruthy();
+  });
+
+  it('shows the error page with a way back when the server cannot be reached', async () => {
+    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('fetch failed'))));
+    const queryClient = testQueryClient();
+    const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: ['/'] });
+    render(
+      <QueryClientProvider client={queryClient}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>,
+    );
+    expect(await h1()).toBe('Something went wrong');
+    expect(screen.getByRole('alert').textContent).toMatch(/could not be reached/);
+    expect(screen.getByRole('button', { name: 'Try again' })).toBeTruthy();
+  });
+});

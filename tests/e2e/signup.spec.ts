@@ -1,0 +1,192 @@
+// Issue 2, browser part: a new person signs up in Chromium, confirms the address from the mail catcher,
+// sees the navigation of their roles, signs out and in again; the public pages pass an axe check.
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { AxeBuilder } from '@axe-core/playwright';
+import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
+import { startTestServer, type TestServer } from './helpers/server';
+
+let server: TestServer;
+let browser: Browser;
+const sessions: BrowserSession[] = [];
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchChromium();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+afterEach(async () => {
+  // Every page of the test must have stayed free of console and page errors.
+  const open = sessions.splice(0);
+  try {
+    for (const s of open) s.problems.assertClean();
+  } finally {
+    await Promise.all(open.map((s) => s.close()));
+  }
+});
+
+async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
+  const s = await openSession(browser, viewport);
+  sessions.push(s);
+  return s;
+}
+
+function mainNav(page: Page) {
+  return page.getByRole('navigation', { name: 'Main' });
+}
+
+async function navLabels(page: Page): Promise<string[]> {
+  return (await mainNav(page).getByRole('link').allInnerTexts()).map((t) => t.trim());
+}
+
+async function openAccountMenu(page: Page) {
+  await page.getByRole('button', { name: /account menu/ }).click();
+}
+
+describe('signing up in the browser', () => {
+  it('signs up as drummer and engineer, confirms the email from the mail catcher, and signs out and in again', async () => {
+    const { page, problems } = await session('desktop');
+    const email = `new-drummer-${Date.now()}@kitlane.test`;
+    const password = 'brush-swell-ghost-notes';
+
+    await page.goto(`${server.url}/sign-up`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Join Kitlane');
+
+    // The client-side check speaks first, beside each field, without asking the server.
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await expect.poll(() => page.getByText('Enter a valid email address').count()).toBe(1);
+    expect(await page.getByText('Pick at least one role').count()).toBe(1);
+    await screenshot(page, 'sign-up-errors-desktop');
+
+    await page.getByLabel('Email').fill(email);
+    await page.getByLabel('Password').fill(password);
+    await page.getByLabel('Display name').fill('Rim Shot Rosa');
+    await page.getByRole('checkbox', { name: /Drummer/ }).check();
+    await page.getByRole('checkbox', { name: /Engineer/ }).check();
+    await page.getByRole('button', { name: 'Create account' }).click();
+
+    await page.waitForURL('**/sign-up/check-inbox');
+    await expect.poll(() => page.getByText(email).count()).toBeGreaterThan(0);
+    expect(await page.getByRole('button', { name: 'Send the link again' }).count()).toBe(1);
+    await screenshot(page, 'check-inbox-desktop');
+
+    // Open the mail in the catcher's web view and follow the link in it, as a person would.
+    const mail = await server.waitForMail(email, /Confirm your email/);
+    const verifyLink = mail.links.find((link) => link.startsWith(`${server.url}/verify-email?token=`));
+    expect(verifyLink, 'the mail links to this server').toBeTruthy();
+    // The catcher's own pages have no icon, so Chromium's automatic /favicon.ico request there gets a 404.
+    problems.ignoreConsoleError(new RegExp(`404.*\\(${server.mailWebUrl.replace(/[.]/g, '\\.')}/favicon\\.ico\\)`));
+    await page.goto(server.mailWebUrl);
+    await page.getByRole('link', { name: 'Confirm your email for Kitlane' }).first().click();
+    await page.getByRole('link', { name: verifyLink! }).first().click();
+
+    await page.waitForURL('**/verify-email?token=*');
+    await expect.poll(() => page.getByText('Your email is confirmed').count(), { timeout: 10_000 }).toBe(1);
+    await screenshot(page, 'verify-email-desktop');
+    // It goes on by itself, signed in.
+    await page.waitForURL(`${server.url}/`, { timeout: 10_000 });
+
+    await expect.poll(() => navLabels(page)).toEqual(['Open briefs', 'My profile', 'My quotes', 'My rooms', 'Messages', 'Bookings']);
+    expect(await page.getByRole('button', { name: /Rim Shot Rosa.*account menu/ }).count()).toBe(1);
+    expect(await page.getByRole('link', { name: 'Notifications' }).count()).toBe(1);
+    await screenshot(page, 'home-signed-in-desktop');
+
+    await page.goto(`${server.url}/account`);
+    await expect.poll(() => page.getByText('Confirmed', { exact: true }).count()).toBe(1);
+    expect(await page.getByRole('checkbox', { name: /Drummer/ }).isChecked()).toBe(true);
+    expect(await page.getByRole('checkbox', { name: /Songwriter/ }).isChecked()).toBe(false);
+    await screenshot(page, 'account-desktop');
+
+    await openAccountMenu(page);
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect.poll(() => navLabels(page)).toEqual(['Find drummers', 'Rooms']);
+    expect(await page.getByRole('link', { name: 'Sign in' }).count()).toBe(1);
+
+    // A wrong password gets the one generic answer (Chromium logs the 401 as a resource error).
+    await page.getByRole('link', { name: 'Sign in' }).click();
+    await page.getByLabel('Email').fill(email);
+    await page.getByLabel('Password').fill('not-the-right-password');
+    problems.expectConsoleError(/status of 401/);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect.poll(() => page.getByRole('alert').innerText()).toContain('That email and password do not match an account');
+    await screenshot(page, 'sign-in-wrong-password-desktop');
+
+    await page.getByLabel('Password').fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.url}/`);
+    await expect.poll(() => navLabels(page)).toContain('My rooms');
+    expect(await navLabels(page)).not.toContain('My briefs');
+    expect(await navLabels(page)).not.toContain('Admin desk');
+  });
+
+  it('shows the navigation behind the menu button on a phone-sized screen', async () => {
+    const { page } = await session('mobile');
+    await page.goto(`${server.url}/`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).count()).toBe(1);
+    // Collapsed: no main navigation until the menu is opened.
+    expect(await mainNav(page).count()).toBe(0);
+    await screenshot(page, 'home-mobile');
+
+    const menu = page.getByRole('button', { name: 'Menu' });
+    await menu.click();
+    expect(await menu.getAttribute('aria-expanded')).toBe('true');
+    expect(await navLabels(page)).toEqual(['Find drummers', 'Rooms']);
+    await screenshot(page, 'menu-open-mobile');
+
+    await mainNav(page).getByRole('link', { name: 'Rooms' }).click();
+    await page.waitForURL('**/rooms');
+    await expect.poll(() => page.getByText('Coming soon in this build').count()).toBe(1);
+    expect(await mainNav(page).count()).toBe(0);
+  });
+
+  it('signs a seeded songwriter in on a phone and shows the songwriter navigation', async () => {
+    const { page } = await session('mobile');
+    await page.goto(`${server.url}/sign-in`);
+    await screenshot(page, 'sign-in-mobile');
+    // A songwriter from the demo seed (the README lists the logins).
+    const { DEMO_PEOPLE } = await import('../../server/db/demo-world');
+    const songwriter = DEMO_PEOPLE.find((p) => p.roles.includes('songwriter' as never) && p.roles.length === 1)!;
+    await page.getByLabel('Email').fill(songwriter.email);
+    await page.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.url}/`);
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await expect.poll(() => navLabels(page)).toEqual(['My briefs', 'Find drummers', 'Messages', 'Bookings', 'Account']);
+    await screenshot(page, 'menu-signed-in-mobile');
+  });
+});
+
+describe('accessibility of the public pages', () => {
+  const PUBLIC_PAGES = [
+    { name: 'home', path: '/', heading: /Real drums on your song/ },
+    { name: 'sign-in', path: '/sign-in', heading: /Sign in/ },
+    { name: 'sign-up', path: '/sign-up', heading: /Join Kitlane/ },
+    { name: 'not-found', path: '/no-such-page', heading: /Page not found/ },
+  ];
+
+  for (const viewport of ['desktop', 'mobile'] as const) {
+    for (const target of PUBLIC_PAGES) {
+      it(`finds no serious or critical axe violations on ${target.name} (${viewport})`, async () => {
+        const { page } = await session(viewport);
+        await page.goto(`${server.url}${target.path}`);
+        await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(target.heading);
+        expect(await page.getByRole('heading', { level: 1 }).count(), 'one h1 per page').toBe(1);
+        expect(await page.getByRole('main').count()).toBe(1);
+        expect(await page.getByRole('banner').count()).toBe(1);
+        expect(await page.getByRole('contentinfo').count()).toBe(1);
+        // The footer links to the local inbox because this server runs on the fakes.
+        expect(await page.getByRole('link', { name: 'Local mail inbox' }).getAttribute('href')).toBe(server.mailWebUrl);
+
+        const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'best-practice']).analyze();
+        const bad = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+        await screenshot(page, `${target.name}-${viewport}`);
+        expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+      });
+    }
+  }
+});
