@@ -245,7 +245,9 @@ class PaymentsFakeServer {
       const params: FormObject = method === 'POST' ? parseBracketedForm(body) : parseBracketedForm(url.search.slice(1));
       const context: RequestContext = { requestId, idempotencyKey, apiVersion };
       const run = (): Reply => ({ status: 200, body: matched.route.handle(this.core, { method, params, path: matched.path, account }) });
-      const reply = idempotencyKey === null ? this.core.action(context, run) : this.idempotent(context, account, idempotencyKey, method, url.pathname, params, run);
+      // Reads do not write the state file; the one read that changes state (lazy session expiry) runs its own action.
+      const reply =
+        method === 'GET' ? run() : idempotencyKey === null ? this.core.action(context, run) : this.idempotent(context, account, idempotencyKey, method, url.pathname, params, run);
       return { ...reply, headers: { ...headers, ...(reply.headers ?? {}) } };
     } catch (error) {
       if (error instanceof FakeApiError) return { status: error.status, body: errorEnvelope(error), headers };

@@ -19,6 +19,9 @@ export function createCheckPool(opts: { maxThreads?: number } = {}): CheckPool {
     maxThreads: threads,
     // Stems come in bursts per delivery; idle workers give their memory back after a minute.
     idleTimeout: 60_000,
+    // The work lives in a few reused typed arrays; a small young generation keeps each worker's
+    // short-lived garbage (promises, small buffers) from piling up tens of MB before a scavenge.
+    resourceLimits: { maxYoungGenerationSizeMb: 4 },
   });
   return {
     threads,

@@ -1,6 +1,7 @@
 // A songwriter's brief: one zod schema validates the form in the browser and the request on the server,
 // so a mistake comes back as a message beside its field either way.
 import { z } from 'zod';
+import { isSupportedCurrency, MAX_PROCESSOR_AMOUNT, SUPPORTED_CURRENCIES } from '../money/currency';
 
 export const BRIEF_STATUSES = ['draft', 'open', 'hired', 'closed', 'withdrawn'] as const;
 export type BriefStatus = (typeof BRIEF_STATUSES)[number];
@@ -12,7 +13,7 @@ export const TIME_SIGNATURES = ['4/4', '3/4', '6/8', '12/8', '2/4', '5/4', '7/8'
 
 export const TEMPO_LIMITS = { min: 20, max: 300 } as const;
 /** Integer minor units, at most 8 digits (the payment processor's limit, REFERENCES.md). */
-export const MAX_AMOUNT_MINOR = 99_999_999;
+export const MAX_AMOUNT_MINOR = MAX_PROCESSOR_AMOUNT;
 export const OPEN_BRIEFS_PAGE_SIZE = 20;
 /** Guide tracks are demos with a click: a few minutes of WAV or MP3. */
 export const GUIDE_MAX_BYTES = 60 * 1024 * 1024;
@@ -53,20 +54,7 @@ export const currencySchema = z
   .string()
   .trim()
   .toUpperCase()
-  .regex(/^[A-Z]{3}$/, 'Use a three-letter currency code such as USD')
-  .refine(isKnownCurrency, 'That currency is not supported');
-
-function isKnownCurrency(code: string): boolean {
-  try {
-    return new Intl.NumberFormat('en', { style: 'currency', currency: code }).resolvedOptions().currency === code && KNOWN_CURRENCIES.has(code);
-  } catch {
-    return false;
-  }
-}
-
-// The currencies the payment processor settles that Kitlane offers (common practice: the widely used ones).
-export const CURRENCIES = ['USD', 'EUR', 'GBP', 'SEK', 'NOK', 'DKK', 'CHF', 'CAD', 'AUD', 'NZD', 'JPY'] as const;
-const KNOWN_CURRENCIES: ReadonlySet<string> = new Set(CURRENCIES);
+  .refine(isSupportedCurrency, `Pick one of ${SUPPORTED_CURRENCIES.join(', ')}`);
 
 export const amountMinorSchema = z
   .number({ error: 'Enter an amount' })

@@ -286,6 +286,8 @@ export type RoomSummary = {
   reading: RoomReadingId;
   thumbUrl: string | null;
   packageCount: number;
+  /** Removed by the engineer: out of search, still readable from the quotes and bookings that name it. */
+  archived: boolean;
 };
 
 export type RoomReadingId = 'tight' | 'controlled' | 'lively' | 'very_live';

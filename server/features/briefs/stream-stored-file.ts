@@ -2,29 +2,9 @@ import type { Request, Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import { AppError, notFound } from '../../http/app-error';
 import type { Storage } from '../../storage/storage';
+// One range parser for every audio stream in the app (reels wrote it first).
+import { parseRange } from '../reels/http-range';
 
-export type ByteRange = { start: number; end: number };
-
-/**
- * Parses a single `Range: bytes=…` header (RFC 9110 §14.1.2) against a file of `size` bytes.
- * null = no usable range (send the whole file); 'unsatisfiable' = answer 416. Several ranges are
- * answered with the first one only: players ask for one range at a time.
- */
-export function parseRange(header: string | undefined, size: number): ByteRange | null | 'unsatisfiable' {
-  if (!header) return null;
-  const m = /^bytes=(\d*)-(\d*)(?:,.*)?$/.exec(header.trim());
-  if (!m || (m[1] === '' && m[2] === '')) return null;
-  if (m[1] === '') {
-    // A suffix range: the last N bytes.
-    const n = Number(m[2]);
-    if (n === 0) return 'unsatisfiable';
-    return { start: Math.max(0, size - n), end: size - 1 };
-  }
-  const start = Number(m[1]);
-  const end = m[2] === '' ? size - 1 : Math.min(Number(m[2]), size - 1);
-  if (start >= size || end < start) return 'unsatisfiable';
-  return { start, end };
-}
 
 /** Streams a stored file with range support, so audio players can seek without downloading it all. */
 export async function streamStoredFile(
@@ -36,10 +16,11 @@ export async function streamStoredFile(
 ): Promise<void> {
   const info = await storage.stat(key);
   if (!info) throw notFound('That file');
-  const range = parseRange(req.get('range'), info.size);
-  if (range === 'unsatisfiable') {
+  const answer = parseRange(req.get('range'), info.size);
+  if (answer.kind === 'unsatisfiable') {
     throw new AppError('range_not_satisfiable', 'That byte range is outside the file', 416, undefined, { 'Content-Range': `bytes */${info.size}` });
   }
+  const range = answer.kind === 'partial' ? { start: answer.start, end: answer.end } : null;
   res.set({
     'Accept-Ranges': 'bytes',
     'Content-Type': meta.mime,

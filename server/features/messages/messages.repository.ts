@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gt, inArray, isNull, ne, or, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { bookings, briefs, messages, threadParticipants, threads, users } from '../../db/schema';
+import { bookings, briefs, messages, quotes, threadParticipants, threads, users } from '../../db/schema';
 
 export type ThreadRow = typeof threads.$inferSelect;
 export type MessageRow = typeof messages.$inferSelect;
@@ -220,6 +220,26 @@ export function createMessagesRepository(db: Db) {
         )
         .orderBy(asc(messages.createdAt))
         .all();
+    },
+
+    /** For the demo seed: published briefs, oldest first, with the drummers who quoted on each. */
+    talkableBriefs(limit: number) {
+      const rows = db
+        .select({ id: briefs.id, songwriterId: briefs.songwriterId })
+        .from(briefs)
+        .where(inArray(briefs.status, ['open', 'hired']))
+        .orderBy(asc(briefs.publishedAt), asc(briefs.id))
+        .limit(limit)
+        .all();
+      return rows.map((b) => ({
+        ...b,
+        quotedBy: db.select({ drummerId: quotes.drummerId }).from(quotes).where(eq(quotes.briefId, b.id)).orderBy(asc(quotes.createdAt)).all().map((q) => q.drummerId),
+      }));
+    },
+
+    /** For the demo seed: bookings, oldest first. */
+    someBookings(limit: number) {
+      return db.select({ id: bookings.id, songwriterId: bookings.songwriterId, drummerId: bookings.drummerId, engineerId: bookings.engineerId }).from(bookings).orderBy(asc(bookings.createdAt)).limit(limit).all();
     },
 
     setDigestedUntil(threadId: string, userId: string, at: Date, tx: Tx = db): void {

@@ -1,6 +1,6 @@
 import type { QuoteLineItem } from '../../db/schema';
 import { AppError } from '../../http/app-error';
-import { MAX_AMOUNT_MINOR } from '@shared/schemas/briefs';
+import { MoneyError, quoteTotal } from '@shared/money';
 
 export type QuotePrices = {
   perSongFeeMinor: number;
@@ -24,19 +24,15 @@ export function buildLineItems(p: QuotePrices): QuoteLineItem[] {
 }
 
 /**
- * The total in integer minor units. The price of an extra revision is quoted beside it, not added:
+ * The total in integer minor units (shared/money's quoteTotal, which also refuses totals that would not
+ * fit one payment with the service fee). The price of an extra revision is quoted beside it, not added:
  * it is only paid if a revision beyond those included is asked for.
  */
-export function totalOf(items: QuoteLineItem[]): number {
-  let total = 0;
-  for (const item of items) {
-    if (!Number.isSafeInteger(item.unitAmount) || !Number.isSafeInteger(item.quantity) || item.unitAmount < 0 || item.quantity < 0) {
-      throw new Error(`line item "${item.label}" is not whole minor units`);
-    }
-    total += item.unitAmount * item.quantity;
+export function totalOf(items: QuoteLineItem[], currency: string): number {
+  try {
+    return quoteTotal(items, currency);
+  } catch (err) {
+    if (err instanceof MoneyError) throw new AppError('invalid_input', err.message, 400, { perSongFeeMinor: err.message });
+    throw err;
   }
-  if (total > MAX_AMOUNT_MINOR) {
-    throw new AppError('invalid_input', 'That total is larger than a payment can be', 400, { perSongFeeMinor: 'The total would be too large' });
-  }
-  return total;
 }

@@ -91,7 +91,7 @@ export function createQuotesService(ctx: Pick<AppContext, 'db' | 'notifications'
               drummerId: user.id,
               status: 'sent',
               lineItems,
-              totalMinor: totalOf(lineItems),
+              totalMinor: totalOf(lineItems, brief.currency),
               currency: brief.currency,
               revisionsIncluded: input.revisionsIncluded,
               extraRevisionMinor: input.extraRevisionMinor,
