@@ -1,6 +1,8 @@
 // The delivery check as a command for engineers, to run on their own files before uploading:
 //   npm run check-stems -- [--json] [--rate 48000] [--depth 24|32f] [--tempo BPM --bars N --beats-per-bar N] FILE...
 // Exit code 0 when nothing fails, 1 when a check fails, 2 when a file cannot be read.
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import type { DeliveryCheckReport } from '@shared/schemas/delivery-check';
 import { checkDelivery, type DeliveryExpect } from '../server/audio/check-delivery';
@@ -142,8 +144,7 @@ export async function main(argv: string[]): Promise<number> {
   }
 }
 
-const invokedDirectly = process.argv[1] && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/').replace(/^.*\/scripts\//, '/scripts/'));
-if (invokedDirectly) {
+if (process.argv[1] && fileURLToPath(import.meta.url) === resolve(process.argv[1])) {
   main(process.argv.slice(2)).then(
     (code) => {
       process.exitCode = code;

@@ -20,6 +20,7 @@ import { createAuthService } from './features/auth/auth.service';
 import { authRoutes } from './features/auth/auth.routes';
 import { createNotifications, type Notifications } from './features/notifications/notifications.service';
 import { featureRoutes } from './features/registry';
+import { createStripeClient, type Stripe } from './payments/stripe';
 
 export type AppDeps = {
   env: Env;
@@ -35,6 +36,8 @@ export type AppDeps = {
   devMiddleware?: RequestHandler;
   /** Public settings the client reads at boot (e.g. the mail catcher's inbox URL). */
   publicConfig?: Record<string, unknown>;
+  /** The processor client (boot points it at the payment fake); made from env when absent. */
+  stripe?: Stripe;
 };
 
 export type AppContext = {
@@ -48,6 +51,7 @@ export type AppContext = {
   appUrl: string;
   limits: Limits;
   notifications: Notifications;
+  stripe: Stripe;
 };
 
 export type KitlaneApp = { app: Express; ctx: AppContext };
@@ -79,7 +83,8 @@ export function createApp(deps: AppDeps): KitlaneApp {
   const mailer = createMailer(jobs, deps.mailTransport, deps.env.MAIL_FROM);
   const lucia = createLucia(deps.db);
   const notifications = createNotifications({ db: deps.db, mailer, appUrl });
-  const ctx: AppContext = { env: deps.env, db: deps.db, storage: deps.storage, logger, jobs, mailer, lucia, appUrl, limits, notifications };
+  const stripe = deps.stripe ?? createStripeClient(deps.env);
+  const ctx: AppContext = { env: deps.env, db: deps.db, storage: deps.storage, logger, jobs, mailer, lucia, appUrl, limits, notifications, stripe };
 
   const authService = createAuthService({ db: deps.db, repo: createAuthRepository(deps.db), lucia, mailer, appUrl });
 
@@ -96,6 +101,8 @@ export function createApp(deps: AppDeps): KitlaneApp {
     res.json({ ...deps.publicConfig });
   });
   api.use(sameOrigin([appUrl]));
+  // Webhook signatures are over the raw bytes: that route keeps its body as a Buffer (STACK.md gotcha).
+  api.use('/webhooks/stripe', express.raw({ type: 'application/json', limit: '1mb' }));
   api.use(express.json({ limit: '100kb' }));
   api.use(loadSession(lucia));
   api.use(authRoutes(authService, lucia, limits));

@@ -11,6 +11,8 @@ import { createLocalStorage } from './storage/storage';
 import { createSmtpTransport } from './mail/outbox';
 import { createApp, type AppDeps, type KitlaneApp } from './app';
 import { startMailCatcher, type MailCatcher } from '../fakes/mail/server';
+import { startPaymentsFake, type PaymentsFake } from '../fakes/payments/server';
+import { createStripeClient } from './payments/stripe';
 import { createLogger } from './logger';
 
 export type Running = {
@@ -20,6 +22,8 @@ export type Running = {
   kitlane: KitlaneApp;
   mail: MailCatcher | null;
   mailWebUrl: string | null;
+  /** The payment fake when START_FAKES (tests drive its /_fake controls). */
+  payments: PaymentsFake | null;
   close(): Promise<void>;
 };
 
@@ -47,6 +51,16 @@ export async function boot(opts: BootOptions): Promise<Running> {
   const mail = env.START_FAKES
     ? await startMailCatcher({ smtpPort: opts.randomPorts ? 0 : env.MAIL_SMTP_PORT, webPort: opts.randomPorts ? 0 : env.MAIL_WEB_PORT })
     : null;
+  // The fake sends webhooks to this app; the URL is set once the app listens (its port may be random).
+  const payments = env.START_FAKES
+    ? await startPaymentsFake({
+        port: opts.randomPorts ? 0 : env.PAYMENTS_PORT,
+        stateFile: join(dataDir, 'payments-fake.json'),
+        webhookSecret: env.STRIPE_WEBHOOK_SECRET,
+        retryBaseMs: opts.randomPorts ? 50 : 1000,
+      })
+    : null;
+  const stripe = createStripeClient(env, { port: payments?.port });
   const mailTransport = env.SMTP_URL
     ? createSmtpTransport({ url: env.SMTP_URL })
     : createSmtpTransport({ host: '127.0.0.1', port: mail?.smtpPort ?? env.MAIL_SMTP_PORT });
@@ -66,7 +80,8 @@ export async function boot(opts: BootOptions): Promise<Running> {
     logger,
     clientDist: opts.dev ? null : resolve('dist'),
     devMiddleware: vite?.middlewares,
-    publicConfig: { mailInboxUrl: mail?.webUrl ?? null },
+    publicConfig: { mailInboxUrl: mail?.webUrl ?? null, stripePublishableKey: env.STRIPE_PUBLISHABLE_KEY ?? null },
+    stripe,
     ...opts.appDeps,
   });
 
@@ -78,6 +93,7 @@ export async function boot(opts: BootOptions): Promise<Running> {
     s.once('error', rej);
   });
   const port = (server.address() as AddressInfo).port;
+  payments?.setWebhookUrl(`http://127.0.0.1:${port}/api/webhooks/stripe`);
   kitlane.ctx.jobs.start();
 
   let closed = false;
@@ -88,12 +104,15 @@ export async function boot(opts: BootOptions): Promise<Running> {
     kitlane,
     mail,
     mailWebUrl: mail?.webUrl ?? null,
+    payments,
     async close() {
       if (closed) return;
       closed = true;
       server.closeAllConnections?.();
       await new Promise<void>((r) => server.close(() => r()));
+      payments?.setWebhookUrl(null);
       await kitlane.ctx.jobs.stop();
+      await payments?.close();
       mailTransport.close();
       await mail?.close();
       await vite?.close();

@@ -33,6 +33,9 @@ export const PERMISSIONS = {
   'settle:dispute:any': ['admin'],
   'disable:account:any': ['admin'],
   'read:ledger:any': ['admin'],
+  'read:audit:any': ['admin'],
+  'grant:admin:any': ['admin'],
+  'review:booking:own': ['songwriter'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;

@@ -54,8 +54,9 @@ export class PaymentsCore {
       const events = this.collected;
       this.collected = null;
       this.request = { requestId: null, idempotencyKey: null, apiVersion: null };
-      this.persist();
+      // Deliveries are queued before the save, so one write covers the action and its webhook queue.
       if (events.length > 0) this.onEvents(events);
+      this.persist();
     }
   }
 

@@ -39,15 +39,15 @@ export class WebhookDispatcher {
 
   constructor(private readonly options: DispatcherOptions) {}
 
-  /** Queues one action's events according to the current mode. */
+  /** Queues one action's events according to the current mode; the caller saves the state. */
   enqueue(events: StripeEvent[]): void {
     const state = this.options.state();
     if (this.options.url() === null) return;
     const ordered = orderForMode(events, state.webhookMode);
     const now = Date.now();
     for (const event of ordered) state.deliveries.push(newDelivery(event, now));
-    this.options.persist();
-    this.kick();
+    // Delivery starts on the next turn, after the caller's save.
+    setImmediate(() => this.kick());
   }
 
   setMode(mode: WebhookMode): void {

@@ -62,62 +62,6 @@ function flushDenormals(state: Float64Array): void {
   for (let i = 0; i < state.length; i++) if (Math.abs(state[i]) < DENORMAL_FLOOR) state[i] = 0;
 }
 
-/** Peak, sums, clipped runs, per-sub-block maxima and waveform buckets in one sweep. */
-function levelPass(x: Float32Array, frames: number, st: ChannelState, subMax: Float32Array, subMean: Float64Array, peaks: Float32Array, firstBucket: number, clip: number): void {
-  let sum = 0;
-  let squares = 0;
-  let peak = st.peak;
-  let run = st.clipRun;
-  let runs = st.clippedRuns;
-  let clipped = st.clippedSamples;
-  const end = TRUE_PEAK_HISTORY + frames;
-  for (let j = 0, start = TRUE_PEAK_HISTORY; start < end; j++, start += SUB_BLOCK) {
-    const stop = start + SUB_BLOCK < end ? start + SUB_BLOCK : end;
-    let max = 0;
-    let local = 0;
-    let localSquares = 0;
-    for (let i = start; i < stop; i++) {
-      const v = x[i];
-      local += v;
-      localSquares += v * v;
-      const a = Math.abs(v);
-      if (a > max) max = a;
-    }
-    // Clipping is only possible where the sub-block reaches full scale: scan just those.
-    if (max >= clip) {
-      for (let i = start; i < stop; i++) {
-        if (Math.abs(x[i]) >= clip) run++;
-        else if (run !== 0) {
-          if (run >= CLIP_RUN) {
-            runs++;
-            clipped += run;
-          }
-          run = 0;
-        }
-      }
-    } else if (run !== 0) {
-      if (run >= CLIP_RUN) {
-        runs++;
-        clipped += run;
-      }
-      run = 0;
-    }
-    squares += localSquares;
-    sum += local;
-    subMean[j] = local / (stop - start);
-    subMax[j] = max;
-    if (max > peak) peak = max;
-    const bucket = firstBucket + ((j * SUB_BLOCK) >> 8);
-    if (max > peaks[bucket]) peaks[bucket] = max;
-  }
-  st.sum += sum;
-  st.sumSquares += squares;
-  st.peak = peak;
-  st.clipRun = run;
-  st.clippedRuns = runs;
-  st.clippedSamples = clipped;
-}
-
 interface FilterSet {
   shelf: Biquad;
   highPass: Biquad;
@@ -125,33 +69,103 @@ interface FilterSet {
   rumble: [Biquad, Biquad];
 }
 
-/** K-weighting (two sections) into per-quarter sums of y². */
-function loudnessPass(x: Float32Array, frames: number, firstFrame: number, st: ChannelState, f: FilterSet, quarterSums: Float64Array, weight: number, sampleRate: number): void {
-  const { b0: kb0, b1: kb1, b2: kb2, a1: ka1, a2: ka2 } = f.shelf;
-  const { b0: hb0, b1: hb1, b2: hb2, a1: ha1, a2: ha2 } = f.highPass;
-  const s = st.filter;
-  let i = 0;
-  while (i < frames) {
-    const quarterEnd = quarterStart(st.quarter + 1, sampleRate) - firstFrame;
-    const stop = quarterEnd < frames ? quarterEnd : frames;
-    let k1 = s[0], k2 = s[1], h1 = s[2], h2 = s[3];
-    let energy = 0;
-    for (let n = TRUE_PEAK_HISTORY + i, last = TRUE_PEAK_HISTORY + stop; n < last; n++) {
-      const v = x[n];
-      const k = kb0 * v + k1;
-      k1 = kb1 * v - ka1 * k + k2;
-      k2 = kb2 * v - ka2 * k;
-      const h = hb0 * k + h1;
-      h1 = hb1 * k - ha1 * h + h2;
-      h2 = hb2 * k - ha2 * h;
-      energy += h * h;
-    }
-    s[0] = k1; s[1] = k2; s[2] = h1; s[3] = h2;
-    flushDenormals(s);
-    quarterSums[st.quarter] += weight * energy;
-    if (stop === quarterEnd) st.quarter++;
-    i = stop;
+interface BlockContext {
+  subMax: Float32Array;
+  subMean: Float64Array;
+  peaks: Float32Array;
+  firstBucket: number;
+  firstFrame: number;
+  clip: number;
+  filters: FilterSet;
+  quarterSums: Float64Array;
+  weight: number;
+  sampleRate: number;
+}
+
+/** Counts finished runs of CLIP_RUN+ full-scale samples inside one sub-block that reached full scale. */
+function scanClips(x: Float32Array, start: number, stop: number, clip: number, st: ChannelState): void {
+  for (let i = start; i < stop; i++) {
+    if (Math.abs(x[i]) >= clip) st.clipRun++;
+    else endClipRun(st);
   }
+}
+
+function endClipRun(st: ChannelState): void {
+  if (st.clipRun >= CLIP_RUN) {
+    st.clippedRuns++;
+    st.clippedSamples += st.clipRun;
+  }
+  st.clipRun = 0;
+}
+
+/**
+ * One sweep per channel block: peak, sums, per-sub-block maxima and means, waveform buckets, and the
+ * K-weighting (two sections) into per-100 ms sums. The level arithmetic rides along in the shadow of
+ * the filter recursion's latency, so it costs almost nothing extra.
+ */
+function measureBlock(x: Float32Array, frames: number, st: ChannelState, ctx: BlockContext): void {
+  const { b0: kb0, b1: kb1, b2: kb2, a1: ka1, a2: ka2 } = ctx.filters.shelf;
+  const { b0: hb0, b1: hb1, b2: hb2, a1: ha1, a2: ha2 } = ctx.filters.highPass;
+  const { subMax, subMean, peaks, clip, quarterSums, weight, sampleRate } = ctx;
+  const f = st.filter;
+  let k1 = f[0], k2 = f[1], h1 = f[2], h2 = f[3];
+  let sum = 0;
+  let squares = 0;
+  let peak = st.peak;
+  let energy = 0;
+  // Block-relative buffer index where the current 100 ms quarter ends.
+  let quarterEnd = TRUE_PEAK_HISTORY + quarterStart(st.quarter + 1, sampleRate) - ctx.firstFrame;
+  const end = TRUE_PEAK_HISTORY + frames;
+  for (let j = 0, start = TRUE_PEAK_HISTORY; start < end; j++, start += SUB_BLOCK) {
+    const stop = start + SUB_BLOCK < end ? start + SUB_BLOCK : end;
+    let max = 0;
+    let local = 0;
+    let localSquares = 0;
+    for (let segment = start; segment < stop; ) {
+      const segmentEnd = quarterEnd < stop ? quarterEnd : stop;
+      for (let i = segment; i < segmentEnd; i++) {
+        const v = x[i];
+        local += v;
+        localSquares += v * v;
+        const a = Math.abs(v);
+        if (a > max) max = a;
+        const k = kb0 * v + k1;
+        k1 = kb1 * v - ka1 * k + k2;
+        k2 = kb2 * v - ka2 * k;
+        const h = hb0 * k + h1;
+        h1 = hb1 * k - ha1 * h + h2;
+        h2 = hb2 * k - ha2 * h;
+        energy += h * h;
+      }
+      if (segmentEnd === quarterEnd) {
+        quarterSums[st.quarter] += weight * energy;
+        energy = 0;
+        st.quarter++;
+        quarterEnd = TRUE_PEAK_HISTORY + quarterStart(st.quarter + 1, sampleRate) - ctx.firstFrame;
+        // Long silences must not run on denormal numbers.
+        if (Math.abs(k1) < DENORMAL_FLOOR) k1 = 0;
+        if (Math.abs(k2) < DENORMAL_FLOOR) k2 = 0;
+        if (Math.abs(h1) < DENORMAL_FLOOR) h1 = 0;
+        if (Math.abs(h2) < DENORMAL_FLOOR) h2 = 0;
+      }
+      segment = segmentEnd;
+    }
+    // Clipping is only possible where the sub-block reaches full scale: scan just those.
+    if (max >= clip) scanClips(x, start, stop, clip, st);
+    else if (st.clipRun !== 0) endClipRun(st);
+    squares += localSquares;
+    sum += local;
+    subMean[j] = local / (stop - start);
+    subMax[j] = max;
+    if (max > peak) peak = max;
+    const bucket = ctx.firstBucket + ((j * SUB_BLOCK) >> 8);
+    if (max > peaks[bucket]) peaks[bucket] = max;
+  }
+  quarterSums[st.quarter] += weight * energy;
+  f[0] = k1; f[1] = k2; f[2] = h1; f[3] = h2;
+  st.sum += sum;
+  st.sumSquares += squares;
+  st.peak = peak;
 }
 
 /**
@@ -221,8 +235,18 @@ export class StemMeter {
     for (let c = 0; c < this.states.length; c++) {
       const st = this.states[c];
       const x = buffers[c];
-      levelPass(x, frames, st, this.subMax, this.subMean, this.peaks, firstBucket, clipThreshold);
-      loudnessPass(x, frames, this.framesSeen, st, this.filters, this.quarterSums, this.weights[c], sampleRate);
+      measureBlock(x, frames, st, {
+        subMax: this.subMax,
+        subMean: this.subMean,
+        peaks: this.peaks,
+        firstBucket,
+        firstFrame: this.framesSeen,
+        clip: clipThreshold,
+        filters: this.filters,
+        quarterSums: this.quarterSums,
+        weight: this.weights[c],
+        sampleRate,
+      });
       rumblePass(this.subMean, subBlocks, frames, st, this.filters);
       st.truePeak.process(x, frames, this.subMax, st.peak);
     }

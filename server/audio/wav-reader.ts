@@ -56,7 +56,7 @@ const MAX_CHANNELS = 1024;
 const U32_UNSET = 0xffffffff;
 // The standard KSDATAFORMAT GUID tail shared by PCM and IEEE float sub-formats (bytes 2..15).
 const KS_GUID_TAIL = Buffer.from([0x00, 0x00, 0x00, 0x00, 0x10, 0x00, 0x80, 0x00, 0x00, 0xaa, 0x00, 0x38, 0x9b, 0x71]);
-const DEFAULT_BLOCK_BYTES = 1024 * 1024;
+const DEFAULT_BLOCK_BYTES = 256 * 1024;
 
 if (endianness() !== 'LE') {
   // The decoders view file bytes through typed arrays, which use the platform's byte order.
@@ -309,7 +309,7 @@ export class WavReader {
     this.buffers = [new Uint8Array(new ArrayBuffer(bytes)), new Uint8Array(new ArrayBuffer(bytes))];
   }
 
-  /** `blockFrames` defaults to about 1 MiB of file bytes per read, a multiple of 256 frames. */
+  /** `blockFrames` defaults to about 256 KiB of file bytes per read, a multiple of 256 frames. */
   static async open(path: string, opts: { blockFrames?: number } = {}): Promise<WavReader> {
     let handle: FileHandle;
     try {

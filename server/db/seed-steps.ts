@@ -1,5 +1,8 @@
 import type { AppContext } from '../app';
+import { messagesSeedStep } from '../features/messages/messages.seed';
 import { profilesSeedStep } from '../features/profiles/profiles.seed';
+import { briefsSeedStep } from '../features/briefs/briefs.seed';
+import { roomsSeedStep } from '../features/rooms/rooms.seed';
 
 /** What the seed knows after creating the demo accounts: demo key (e.g. 'mara') → user id. */
 export type SeedState = { userIds: Record<string, string>; [k: string]: unknown };
@@ -11,4 +14,11 @@ export type SeedState = { userIds: Record<string, string>; [k: string]: unknown 
 export type SeedStep = { name: string; run(ctx: AppContext, state: SeedState): Promise<void> | void };
 
 // Profiles first: briefs, quotes and threads of later steps point at drummers with profiles and reels.
-export const seedSteps: SeedStep[] = [profilesSeedStep];
+export const seedSteps: SeedStep[] = [
+  profilesSeedStep,
+  // Before briefs: a demo quote may name a mic package (state.micPackageIds).
+  roomsSeedStep,
+  briefsSeedStep,
+  // Keep last: the demo conversations are about the briefs, quotes and bookings the steps above create.
+  messagesSeedStep,
+];

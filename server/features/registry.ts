@@ -8,6 +8,11 @@ import { reelsRoutes } from './reels/reels.routes';
 import { searchRoutes } from './search/search.routes';
 import { messagesRoutes } from './messages/messages.routes';
 import { notificationsRoutes } from './notifications/notifications.routes';
+import { roomsFeatureRoutes } from './rooms/rooms-feature.routes';
+import { paymentsRoutes } from './payments/payments.routes';
+import { disputesRoutes } from './disputes/disputes.routes';
+import { adminRoutes } from './admin/admin.routes';
+import { reviewsRoutes } from './reviews/reviews.routes';
 
 /**
  * Each feature contributes one router factory. Add a line here when a feature gets routes;
@@ -19,4 +24,7 @@ export const featureRoutes: FeatureRoutes[] = [
   briefsRoutes, quotesRoutes, bookingsRoutes,
   profilesRoutes, reelsRoutes, searchRoutes,
   messagesRoutes, notificationsRoutes,
+  roomsFeatureRoutes,
+  paymentsRoutes,
+  disputesRoutes, adminRoutes, reviewsRoutes,
 ];

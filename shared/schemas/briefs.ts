@@ -1,6 +1,7 @@
 // A songwriter's brief: one zod schema validates the form in the browser and the request on the server,
 // so a mistake comes back as a message beside its field either way.
 import { z } from 'zod';
+import { DRUM_STYLES } from './profiles';
 import { isSupportedCurrency, MAX_PROCESSOR_AMOUNT, SUPPORTED_CURRENCIES } from '../money/currency';
 
 export const BRIEF_STATUSES = ['draft', 'open', 'hired', 'closed', 'withdrawn'] as const;
@@ -70,7 +71,8 @@ const briefFieldsSchema = z.strictObject({
   songTitle: z.string().trim().min(1, 'Give the song a title').max(120, 'Use at most 120 characters'),
   description: text(4000).default(''),
   drumNotes: text(4000).default(''),
-  style: z.string().trim().min(1, 'Name a style').max(40, 'Use at most 40 characters'),
+  // The same style list drummers pick from, so a brief's style matches their profiles and the search.
+  style: z.enum(DRUM_STYLES, 'Pick a style from the list'),
   tempoBpm: z
     .number({ error: 'Enter the tempo in BPM' })
     .min(TEMPO_LIMITS.min, `Tempo is at least ${TEMPO_LIMITS.min} BPM`)
@@ -121,13 +123,9 @@ const optionalNumber = (schema: z.ZodNumber) =>
   z.preprocess((v) => (v === '' || v === undefined ? undefined : Number(v)), schema.optional());
 
 export const openBriefsQuerySchema = z.strictObject({
-  style: z.string().trim().max(40).optional().transform((v) => (v ? v : undefined)),
+  style: z.preprocess((v) => (v === '' ? undefined : v), z.enum(DRUM_STYLES, 'Pick a style from the list').optional()),
   budgetMin: optionalNumber(z.number({ error: 'Use a whole amount' }).int().min(0).max(MAX_AMOUNT_MINOR)),
-  deadlineBefore: z
-    .string()
-    .optional()
-    .transform((v) => (v ? v : undefined))
-    .refine((v) => v === undefined || isCalendarDate(v), 'Use a date like 2030-05-31'),
+  deadlineBefore: z.preprocess((v) => (v === '' ? undefined : v), calendarDateSchema.optional()),
   tempoMin: optionalNumber(z.number({ error: 'Use a number' }).min(0).max(1000)),
   tempoMax: optionalNumber(z.number({ error: 'Use a number' }).min(0).max(1000)),
   page: optionalNumber(z.number({ error: 'Use a page number' }).int().min(1).max(10_000)),

@@ -29,6 +29,12 @@ export const sendMessageInputSchema = z.strictObject({
 });
 export type SendMessageInput = z.infer<typeof sendMessageInputSchema>;
 
+/** The composer's form: text, or a file with optional text (the file itself is checked by the server). */
+export const messageFormSchema = z
+  .object({ body: messageBodySchema, hasFile: z.boolean() })
+  .refine((v) => v.body.length > 0 || v.hasFile, { path: ['body'], message: 'Write a message or attach a file' });
+export type MessageFormInput = z.infer<typeof messageFormSchema>;
+
 /** `after` is the createdAt of the newest message the client has (ISO string or epoch milliseconds). */
 export const listMessagesQuerySchema = z.strictObject({
   after: z

@@ -74,6 +74,7 @@ export const prepTickInputSchema = z.object({
 export type PrepTickInput = z.infer<typeof prepTickInputSchema>;
 
 export const prepItemIdSchema = z.enum(PREP_ITEM_IDS, { error: 'There is no such checklist item' });
+export const prepItemParamsSchema = z.object({ itemId: prepItemIdSchema });
 
 export type PrepEventView = { itemId: PrepItemId; done: boolean; by: { id: string; displayName: string }; at: string };
 

@@ -4,7 +4,7 @@ import { cleanup, render, screen } from '@testing-library/react';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { fakeServer, testQueryClient } from '@/testing/render-with-providers';
-import { createRoutes } from './router';
+import { COMING_SOON, createRoutes } from './router';
 
 afterEach(() => {
   cleanup();
@@ -60,9 +60,11 @@ describe('app routes', () => {
     expect(screen.getByRole('link', { name: 'Back to the home page' }).getAttribute('href')).toBe('/');
   });
 
-  it('renders a not-yet-built page as the coming-soon stub with its own title', async () => {
-    startAt('/quotes', drummer);
-    expect(await h1()).toBe('My quotes');
+  // Stubs disappear as later issues build their pages; the test follows whichever one is left.
+  it.skipIf(COMING_SOON.length === 0)('renders a not-yet-built page as the coming-soon stub with its own title', async () => {
+    const stub = COMING_SOON[0]!;
+    startAt(stub.path, drummer);
+    expect(await h1()).toBe(stub.title);
     expect(screen.getByText('Coming soon in this build')).toBeTruthy();
   });
 

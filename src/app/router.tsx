@@ -3,6 +3,10 @@ import type { QueryClient } from '@tanstack/react-query';
 import { paths } from '@/config/paths';
 import { PageSpinner } from '@/components/ui';
 import { meQueryOptions } from '@/features/auth/api/get-me';
+import { briefQueryOptions } from '@/features/briefs/api/get-brief';
+import { briefQuotesQueryOptions } from '@/features/quotes/api/get-brief-quotes';
+import { quoteQueryOptions } from '@/features/quotes/api/get-quote';
+import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
 import { RootLayout } from './routes/root';
 import { RouteError, RootError } from './routes/route-error';
 import type { ComingSoonHandle } from './routes/coming-soon';
@@ -18,21 +22,29 @@ const page = {
   resetPassword: () => import('./routes/reset-password'),
   account: () => import('./routes/account'),
   notFound: () => import('./routes/not-found'),
+  myBriefs: () => import('./routes/my-briefs'),
+  newBrief: () => import('./routes/new-brief'),
+  brief: () => import('./routes/brief-detail'),
+  editBrief: () => import('./routes/edit-brief'),
+  openBriefs: () => import('./routes/open-briefs'),
+  compareQuotes: () => import('./routes/compare-quotes'),
+  myQuotes: () => import('./routes/my-quotes'),
+  quote: () => import('./routes/quote-detail'),
+  bookings: () => import('./routes/bookings'),
+  booking: () => import('./routes/booking-detail'),
   comingSoon: () => import('./routes/coming-soon'),
+  messages: () => import('./routes/messages'),
+  messageThread: () => import('./routes/message-thread'),
+  notifications: () => import('./routes/notifications'),
+  notificationSettings: () => import('./routes/notification-settings'),
 };
 
 /** Route stubs: navigation targets whose features later issues build. Each renders the one coming-soon page. */
-const COMING_SOON: Array<{ path: string; title: string; description: string; signedIn: boolean }> = [
+export const COMING_SOON: Array<{ path: string; title: string; description: string; signedIn: boolean }> = [
   { path: paths.findDrummers.path, title: 'Find drummers', description: 'Search session drummers by style, rate and turnaround.', signedIn: false },
   { path: paths.rooms.path, title: 'Rooms', description: 'Rooms and mic packages that engineers offer for drum sessions.', signedIn: false },
-  { path: paths.myBriefs.path, title: 'My briefs', description: 'The songs you want drums for, and the quotes they received.', signedIn: true },
-  { path: paths.openBriefs.path, title: 'Open briefs', description: 'Songs waiting for a drummer, ready for your quote.', signedIn: true },
   { path: paths.myProfile.path, title: 'My profile', description: 'What songwriters see about you: styles, kit, rates, reel and rooms.', signedIn: true },
-  { path: paths.myQuotes.path, title: 'My quotes', description: 'The quotes you sent and where each one stands.', signedIn: true },
   { path: paths.myRooms.path, title: 'My rooms', description: 'Your rooms and mic packages, with their acoustics.', signedIn: true },
-  { path: paths.messages.path, title: 'Messages', description: 'Your conversations about briefs and bookings.', signedIn: true },
-  { path: paths.bookings.path, title: 'Bookings', description: 'Hired jobs: payment, recording, deliveries and acceptance.', signedIn: true },
-  { path: paths.notifications.path, title: 'Notifications', description: 'New quotes, messages, deliveries and payments.', signedIn: true },
   { path: paths.adminDesk.path, title: 'Admin desk', description: 'Disputes, accounts and the money ledger.', signedIn: true },
 ];
 
@@ -50,6 +62,14 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
     if (!me.user) throw redirect(paths.signIn.getHref(pathOf(request)));
     return null;
   };
+  // Detail pages start their request while the page's code loads; a failed request is shown by the page itself.
+  const prefetching =
+    (prefetch: (params: LoaderFunctionArgs['params']) => Promise<void>) =>
+    async (args: LoaderFunctionArgs) => {
+      await requireSignedIn(args);
+      void prefetch(args.params);
+      return null;
+    };
   // Someone already signed in has nothing to do on sign-in or sign-up.
   const requireSignedOut = async () => {
     const me = await loadMe();
@@ -87,6 +107,20 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.forgotPassword.path, lazy: page.forgotPassword },
             { path: paths.resetPassword.path, lazy: page.resetPassword },
             { path: paths.account.path, lazy: page.account, loader: requireSignedIn },
+            { path: paths.messages.path, lazy: page.messages, loader: requireSignedIn },
+            { path: paths.messageThread.path, lazy: page.messageThread, loader: requireSignedIn },
+            { path: paths.notifications.path, lazy: page.notifications, loader: requireSignedIn },
+            { path: paths.notificationSettings.path, lazy: page.notificationSettings, loader: requireSignedIn },
+            { path: paths.myBriefs.path, lazy: page.myBriefs, loader: requireSignedIn },
+            { path: paths.newBrief.path, lazy: page.newBrief, loader: requireSignedIn },
+            { path: paths.openBriefs.path, lazy: page.openBriefs, loader: requireSignedIn },
+            { path: paths.brief.path, lazy: page.brief, loader: prefetching((p) => queryClient.prefetchQuery(briefQueryOptions(p.briefId ?? ''))) },
+            { path: paths.editBrief.path, lazy: page.editBrief, loader: prefetching((p) => queryClient.prefetchQuery(briefQueryOptions(p.briefId ?? ''))) },
+            { path: paths.compareQuotes.path, lazy: page.compareQuotes, loader: prefetching((p) => queryClient.prefetchQuery(briefQuotesQueryOptions(p.briefId ?? ''))) },
+            { path: paths.myQuotes.path, lazy: page.myQuotes, loader: requireSignedIn },
+            { path: paths.quote.path, lazy: page.quote, loader: prefetching((p) => queryClient.prefetchQuery(quoteQueryOptions(p.quoteId ?? ''))) },
+            { path: paths.bookings.path, lazy: page.bookings, loader: requireSignedIn },
+            { path: paths.booking.path, lazy: page.booking, loader: prefetching((p) => queryClient.prefetchQuery(bookingQueryOptions(p.bookingId ?? ''))) },
             ...comingSoonRoutes,
             { path: '*', lazy: page.notFound },
           ],

@@ -24,15 +24,24 @@ export const paths = {
 
   // Filled by later issues; until then they render the "coming soon in this build" page.
   myBriefs: { path: '/briefs/mine', getHref: () => '/briefs/mine' },
-  openBriefs: { path: '/briefs', getHref: () => '/briefs' },
+  newBrief: { path: '/briefs/new', getHref: () => '/briefs/new' },
+  brief: { path: '/briefs/:briefId', getHref: (id: string) => `/briefs/${encodeURIComponent(id)}` },
+  editBrief: { path: '/briefs/:briefId/edit', getHref: (id: string) => `/briefs/${encodeURIComponent(id)}/edit` },
+  compareQuotes: { path: '/briefs/:briefId/quotes', getHref: (id: string) => `/briefs/${encodeURIComponent(id)}/quotes` },
+  quote: { path: '/quotes/:quoteId', getHref: (id: string) => `/quotes/${encodeURIComponent(id)}` },
+  booking: { path: '/bookings/:bookingId', getHref: (id: string) => `/bookings/${encodeURIComponent(id)}` },
+  openBriefs: { path: '/briefs', getHref: (search?: string) => (search ? `/briefs?${search}` : '/briefs') },
   findDrummers: { path: '/drummers', getHref: () => '/drummers' },
   rooms: { path: '/rooms', getHref: () => '/rooms' },
   myRooms: { path: '/rooms/mine', getHref: () => '/rooms/mine' },
   myProfile: { path: '/profile', getHref: () => '/profile' },
   myQuotes: { path: '/quotes', getHref: () => '/quotes' },
   messages: { path: '/messages', getHref: () => '/messages' },
+  messageThread: { path: '/messages/:threadId', getHref: (threadId: string) => `/messages/${encodeURIComponent(threadId)}` },
   bookings: { path: '/bookings', getHref: () => '/bookings' },
   notifications: { path: '/notifications', getHref: () => '/notifications' },
+  // `mute` preselects one kind: the unsubscribe link at the foot of every notification mail.
+  notificationSettings: { path: '/notifications/settings', getHref: (mute?: string) => (mute ? `/notifications/settings?mute=${encodeURIComponent(mute)}` : '/notifications/settings') },
   adminDesk: { path: '/admin', getHref: () => '/admin' },
 } as const;
 

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { execFileSync, spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { todayIn } from '@shared/schemas/briefs';
-import { signUp, startTestApp, type ApiClient, type TestApp } from './helpers/test-app';
+import { DEMO_PASSWORD, signUp, startTestApp, type ApiClient, type TestApp } from './helpers/test-app';
 import { briefBody, daysFromToday, demoGuide, fetchWithSession, publishedBrief, quoteBody, uploadFile } from './helpers/hire';
 
 let app: TestApp;
@@ -186,14 +186,14 @@ describe('open briefs for drummers', () => {
   let rich: string;
   beforeAll(async () => {
     const s = (await signUp(app, { email: 'filters@example.test', roles: ['songwriter'] })).client;
-    fast = await publishedBrief(s, { style: 'Punk', tempoBpm: 190, budgetMaxMinor: 30000, budgetMinMinor: 10000, deadline: daysFromToday(10) });
+    fast = await publishedBrief(s, { style: 'punk', tempoBpm: 190, budgetMaxMinor: 30000, budgetMinMinor: 10000, deadline: daysFromToday(10) });
     slow = await publishedBrief(s, { style: 'punk', tempoBpm: 70, budgetMaxMinor: 40000, budgetMinMinor: 10000, deadline: daysFromToday(40) });
-    rich = await publishedBrief(s, { style: 'Soul', tempoBpm: 96, budgetMaxMinor: 250000, budgetMinMinor: 100000, deadline: daysFromToday(20) });
+    rich = await publishedBrief(s, { style: 'soul', tempoBpm: 96, budgetMaxMinor: 250000, budgetMinMinor: 100000, deadline: daysFromToday(20) });
   });
   const ids = (res: { body: { items: { id: string }[] } }) => res.body.items.map((b) => b.id);
 
-  it('filters by style (any case), budget, deadline and tempo', async () => {
-    const punk = await drummer.get('/api/briefs/open?style=PUNK');
+  it('filters by style, budget, deadline and tempo', async () => {
+    const punk = await drummer.get('/api/briefs/open?style=punk');
     expect(new Set(ids(punk))).toEqual(new Set([fast, slow]));
     expect(ids(await drummer.get('/api/briefs/open?budgetMin=200000'))).toEqual([rich]);
     const soon = ids(await drummer.get(`/api/briefs/open?style=punk&deadlineBefore=${daysFromToday(15)}`));
@@ -203,7 +203,7 @@ describe('open briefs for drummers', () => {
   });
 
   it('answers 400, not 500, to bad filters', async () => {
-    for (const q of ['page=0', 'budgetMin=abc', 'deadlineBefore=tomorrow', 'tempoMin=x', 'unknown=1']) {
+    for (const q of ['page=0', 'style=polka', 'budgetMin=abc', 'deadlineBefore=tomorrow', 'tempoMin=x', 'unknown=1']) {
       expect((await drummer.get(`/api/briefs/open?${q}`)).status).toBe(400);
     }
   });
@@ -373,5 +373,42 @@ describe('guide track', () => {
     expect(files).toHaveLength(2);
     expect(files.some((f) => f.endsWith('.wav'))).toBe(true);
     expect(files.some((f) => f.endsWith('.peaks.json'))).toBe(true);
+  });
+});
+
+describe('the demo seed', () => {
+  let seeded: TestApp;
+  beforeAll(async () => {
+    seeded = await startTestApp({ seed: true });
+  });
+  afterAll(async () => {
+    await seeded?.close();
+  });
+
+  async function signIn(email: string) {
+    const c = seeded.client();
+    const res = await c.post('/api/auth/login', { email, password: DEMO_PASSWORD });
+    expect(res.status).toBe(200);
+    return c;
+  }
+
+  it('has open briefs from the songwriters with synthesised guide tracks, quotes, and one booking awaiting payment', async () => {
+    const juno = await signIn('juno@kitlane.test');
+    const open = await juno.get('/api/briefs/open');
+    expect(open.body.items.length).toBeGreaterThanOrEqual(2);
+    // Juno was invited to Paper Lanterns, so it comes first.
+    expect(open.body.items[0]).toMatchObject({ songTitle: 'Paper Lanterns', invited: true, hasGuide: true });
+    const peaks = await fetchWithSession(juno, `${seeded.url}/api/briefs/${open.body.items[0].id}/guide/peaks`);
+    const json = await peaks.json();
+    expect(json.durationSec).toBeGreaterThanOrEqual(10);
+    expect(json.durationSec).toBeLessThanOrEqual(20);
+
+    const teo = await signIn('teo@kitlane.test');
+    const bookings = await teo.get('/api/bookings');
+    expect(bookings.body.items).toHaveLength(1);
+    expect(bookings.body.items[0]).toMatchObject({ status: 'awaiting_payment', currency: 'USD', totalMinor: 26000, drummer: { displayName: 'Odell Brisk' } });
+    const mara = await signIn('mara@kitlane.test');
+    const mine = await mara.get('/api/briefs/mine');
+    expect(mine.body.items[0]).toMatchObject({ songTitle: 'Paper Lanterns', status: 'open', quoteCount: 2 });
   });
 });

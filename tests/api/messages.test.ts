@@ -4,7 +4,9 @@ import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
 import { signUp, startTestApp, type ApiClient, type TestApp } from './helpers/test-app';
-import { bookings, briefs, notificationMutes, quotes } from '../../server/db/schema';
+import { bookings, briefs, jobs, notificationMutes, quotes } from '../../server/db/schema';
+import { DIGEST_JOB } from '../../server/features/messages/messages.digest';
+import { messagesSeedStep } from '../../server/features/messages/messages.seed';
 
 // Briefs and bookings are written straight into the database here: these tests are about conversations,
 // and the brief/booking rules have their own tests. The states used are the ones DESIGN.md names.
@@ -91,11 +93,11 @@ async function send(who: Person, threadId: string, body: string) {
   return who.client.post(`/api/threads/${threadId}/messages`, { body });
 }
 
-/** A multipart body built by hand-free FormData; the fetch of the test client needs no content-type then. */
+/** A multipart body from FormData: fetch sets the multipart content type and boundary itself. */
 async function sendFile(who: Person, threadId: string, file: { bytes: Uint8Array; name: string; type?: string }, body = '') {
   const form = new FormData();
   form.set('body', body);
-  form.set('file', new Blob([file.bytes], { type: file.type ?? 'application/octet-stream' }), file.name);
+  form.set('file', new Blob([new Uint8Array(file.bytes)], { type: file.type ?? 'application/octet-stream' }), file.name);
   return rawRequest(who, 'POST', `/api/threads/${threadId}/messages`, form);
 }
 
@@ -483,6 +485,36 @@ describe('rate limit', () => {
       expect((await sw.client.post(`/api/threads/${threadId}/messages`, { body: 'still here' })).status).toBe(201);
     } finally {
       await limited.close();
+    }
+  });
+});
+
+describe('demo seed step', () => {
+  it('skips quietly without briefs, then writes conversations on published briefs through the service', async () => {
+    const fresh = await startTestApp();
+    try {
+      const sw = await signUp(fresh, { email: 'seed-sw@example.test', roles: ['songwriter'] });
+      const dr = await signUp(fresh, { email: 'seed-dr@example.test', roles: ['drummer'] });
+      const state = { userIds: { juno: dr.user.id } };
+      await messagesSeedStep.run(fresh.kitlane.ctx, state);
+      expect(state).toMatchObject({ messageThreads: 0, messages: 0 });
+
+      const now = new Date();
+      for (const [i, status] of (['open', 'draft', 'hired'] as const).entries()) {
+        fresh.db
+          .insert(briefs)
+          .values({ id: randomUUID(), songwriterId: sw.user.id, status, songTitle: `Seed ${i}`, tempoBpm: 90, budgetMinMinor: 1, budgetMaxMinor: 2, currency: 'USD', deadline: '2031-01-01', createdAt: now, updatedAt: now, publishedAt: now })
+          .run();
+      }
+      await messagesSeedStep.run(fresh.kitlane.ctx, state);
+      expect(state).toMatchObject({ messageThreads: 2 });
+      const threads = (await sw.client.get('/api/threads')).body.items as { subject: string; unread: number }[];
+      expect(threads.map((t) => t.subject).sort()).toEqual(['Seed 0', 'Seed 2']);
+      expect(threads.every((t) => t.unread >= 1)).toBe(true);
+      // History, not news: no digest is even scheduled for seeded messages.
+      expect(fresh.db.select().from(jobs).where(eq(jobs.kind, DIGEST_JOB)).all()).toHaveLength(0);
+    } finally {
+      await fresh.close();
     }
   });
 });

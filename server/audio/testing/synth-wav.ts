@@ -102,7 +102,6 @@ export function encodeSamples(channels: Float32Array[], encoding: 'pcm' | 'float
         out[at + 2] = (code >> 16) & 0xff;
       } else if (bits === 8) out[at] = code / shift + 128;
       else if (bits === 16) out.writeInt16LE(code, at);
-      else if (bits === 24) out.writeIntLE(code, at, 3);
       else out.writeInt32LE(code, at);
     }
   }

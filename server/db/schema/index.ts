@@ -5,3 +5,8 @@ export * from './profiles';
 export * from './briefs';
 export * from './messages';
 export * from './rooms';
+export * from './ledger';
+export * from './payments';
+export * from './disputes';
+export * from './audit';
+export * from './reviews';

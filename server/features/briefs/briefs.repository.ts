@@ -94,11 +94,11 @@ export function createBriefsRepository(db: Db) {
 
     /**
      * Open briefs for one drummer: the ones they were invited to first, then the newest; never their own.
-     * Style compares without case; budgetMin keeps briefs whose top of the range reaches it.
+     * budgetMin keeps briefs whose top of the range reaches it; deadlineBefore is inclusive.
      */
     listOpen(drummerId: string, q: OpenBriefsQuery, limit: number, offset: number): { rows: OpenBriefRow[]; total: number } {
       const where: SQL[] = [eq(briefs.status, 'open'), sql`${briefs.songwriterId} <> ${drummerId}`];
-      if (q.style) where.push(sql`lower(${briefs.style}) = lower(${q.style})`);
+      if (q.style) where.push(eq(briefs.style, q.style));
       if (q.budgetMin !== undefined) where.push(gte(briefs.budgetMaxMinor, q.budgetMin));
       if (q.deadlineBefore) where.push(lte(briefs.deadline, q.deadlineBefore));
       if (q.tempoMin !== undefined) where.push(gte(briefs.tempoBpm, q.tempoMin));

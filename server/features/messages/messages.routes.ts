@@ -11,6 +11,7 @@ import { fieldsOf } from '../../http/error-handler';
 import { createMessagesRepository } from './messages.repository';
 import { createMessagesService, type MessagesService } from './messages.service';
 import { createDigests } from './messages.digest';
+import { contentDisposition } from './content-disposition';
 import {
   briefThreadInputSchema,
   listMessagesQuerySchema,
@@ -33,13 +34,6 @@ export function createMessagesFeature(ctx: AppContext): MessagesService {
     delayMs: ctx.env.MESSAGE_DIGEST_DELAY_MS,
   });
   return createMessagesService({ db: ctx.db, repo, storage: ctx.storage, digests, logger: ctx.logger });
-}
-
-/** An attachment's name in a header: no quotes, slashes or control characters, plus an RFC 6266 UTF-8 form. */
-export function contentDisposition(name: string): string {
-  const clean = name.replace(/[\u0000-\u001f\u007f"\\/]/g, '_').slice(0, 200) || 'attachment';
-  const ascii = clean.replace(/[^\x20-\x7e]/g, '_');
-  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(clean)}`;
 }
 
 // Named route parameters are plain strings; the typings widen them once middleware sits in front.

@@ -19,7 +19,15 @@ export function utcOffsetMinutesAt(timeZone: string, at: Date): number {
  * offsets is the standard one in both hemispheres.
  */
 export function standardOffsetMinutes(timeZone: string, year = new Date().getUTCFullYear()): number {
+  // Building an Intl formatter is the slow part; a bulk seed asks for the same few zones thousands of times.
+  const key = `${timeZone}|${year}`;
+  const known = cache.get(key);
+  if (known !== undefined) return known;
   const january = utcOffsetMinutesAt(timeZone, new Date(Date.UTC(year, 0, 1, 12)));
   const july = utcOffsetMinutesAt(timeZone, new Date(Date.UTC(year, 6, 1, 12)));
-  return Math.min(january, july);
+  const standard = Math.min(january, july);
+  cache.set(key, standard);
+  return standard;
 }
+
+const cache = new Map<string, number>();

@@ -88,7 +88,8 @@ function whereOf(f: DrummerSearchFilters): { from: string; where: string[]; para
     params.push(f.offsetRange.min, f.offsetRange.max);
   }
   if (f.style !== undefined) {
-    where.push('p.user_id IN (SELECT s.user_id FROM drummer_styles s WHERE s.style = ?)');
+    // EXISTS, not IN (…): with IN the planner probes the whole style list once per FTS match.
+    where.push('EXISTS (SELECT 1 FROM drummer_styles s WHERE s.style = ? AND s.user_id = p.user_id)');
     params.push(f.style);
   }
   return { from, where, params };

@@ -77,7 +77,7 @@ export function AccountMenu({ user }: { user: MeUser }) {
       <div
         id={menuId}
         hidden={!open}
-        className="absolute right-0 z-20 mt-2 w-60 rounded-xl border border-line bg-canvas-raised p-2 text-ink shadow-lg"
+        className="on-light absolute right-0 z-20 mt-2 w-60 rounded-xl border border-line bg-canvas-raised p-2 text-ink shadow-lg"
       >
         <p className="truncate px-3 py-2 text-sm text-ink-muted">{user.email}</p>
         <Link to={paths.account.getHref()} onClick={close} className="block rounded-lg px-3 py-2 font-medium hover:bg-canvas-sunken">

@@ -5,7 +5,7 @@ import { paths } from '@/config/paths';
 import { cx } from '@/components/ui';
 import { navigationFor, type NavItem } from './navigation';
 import { AccountMenu, useSignOutAndLeave } from './account-menu';
-import { NotificationsLink } from './notifications-link';
+import { HeaderInbox } from '@/features/notifications/components/header-inbox';
 import { Wordmark } from './wordmark';
 
 const navLinkClass = ({ isActive }: { isActive: boolean }) =>
@@ -84,7 +84,7 @@ export function AppHeader({ user }: { user: MeUser | null }) {
   const toggleMenu = () => setMenuOpenOn(menuOpen ? null : pathname);
 
   return (
-    <header className="bg-brand-700 text-white">
+    <header className="on-dark bg-brand-700 text-white">
       <div className="mx-auto flex max-w-6xl items-center gap-3 px-4 py-3 sm:px-6">
         <Link to={paths.home.getHref()} className="mr-2 shrink-0 rounded-lg text-white">
           <Wordmark />
@@ -94,7 +94,7 @@ export function AppHeader({ user }: { user: MeUser | null }) {
         <div className="ml-auto flex items-center gap-1">
           {user ? (
             <>
-              <NotificationsLink />
+              <HeaderInbox />
               <div className="hidden lg:block">
                 <AccountMenu user={user} />
               </div>

@@ -14,7 +14,7 @@ export function briefBody(overrides: Record<string, unknown> = {}) {
     songTitle: 'Harbour Lights',
     description: 'A mid-tempo rock song about leaving a small town.',
     drumNotes: 'Driving eighths on the hats, big fills into the choruses.',
-    style: 'Rock',
+    style: 'rock',
     tempoBpm: 120,
     timeSignature: '4/4',
     musicalKey: 'E minor',

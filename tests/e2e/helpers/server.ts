@@ -32,16 +32,28 @@ export function buildClientOnce(): Promise<void> {
   if (clientBuildIsFresh()) return Promise.resolve();
   building ??= (async () => {
     const { build } = await import('vite');
-    await build({
-      root: ROOT,
-      configFile: join(ROOT, 'vite.config.ts'),
-      logLevel: 'warn',
-      mode: 'production',
-      // The build shares the machine with the test run; its "slow plugin" timing report is noise here.
-      build: { rolldownOptions: { checks: { bundlerTimings: false } } },
-    });
+    // Vitest sets NODE_ENV=test, and Vite keeps an existing NODE_ENV: without this the test would ship
+    // React's development build (larger, and not what users get).
+    const previous = process.env.NODE_ENV;
+    process.env.NODE_ENV = 'production';
+    try {
+      await buildProduction(build);
+    } finally {
+      process.env.NODE_ENV = previous;
+    }
   })();
   return building;
+}
+
+async function buildProduction(build: typeof import('vite').build): Promise<void> {
+  await build({
+    root: ROOT,
+    configFile: join(ROOT, 'vite.config.ts'),
+    logLevel: 'warn',
+    mode: 'production',
+    // The build shares the machine with the test run; its "slow plugin" timing report is noise here.
+    build: { rolldownOptions: { checks: { bundlerTimings: false } } },
+  });
 }
 
 function freePort(): Promise<number> {
