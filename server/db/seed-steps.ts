@@ -3,6 +3,8 @@ import { messagesSeedStep } from '../features/messages/messages.seed';
 import { profilesSeedStep } from '../features/profiles/profiles.seed';
 import { briefsSeedStep } from '../features/briefs/briefs.seed';
 import { roomsSeedStep } from '../features/rooms/rooms.seed';
+import { paymentsSeedStep } from '../features/payments/payments.seed';
+import { disputesSeedStep } from '../features/disputes/disputes.seed';
 
 /** What the seed knows after creating the demo accounts: demo key (e.g. 'mara') → user id. */
 export type SeedState = { userIds: Record<string, string>; [k: string]: unknown };
@@ -19,6 +21,10 @@ export const seedSteps: SeedStep[] = [
   // Before briefs: a demo quote may name a mic package (state.micPackageIds).
   roomsSeedStep,
   briefsSeedStep,
+  // After briefs: funds their booking and hires two more, paying on the payment fake.
+  paymentsSeedStep,
+  // After payments: needs its paid-out booking for a review, and payees with payout accounts.
+  disputesSeedStep,
   // Keep last: the demo conversations are about the briefs, quotes and bookings the steps above create.
   messagesSeedStep,
 ];

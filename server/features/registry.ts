@@ -10,6 +10,7 @@ import { messagesRoutes } from './messages/messages.routes';
 import { notificationsRoutes } from './notifications/notifications.routes';
 import { roomsFeatureRoutes } from './rooms/rooms-feature.routes';
 import { paymentsRoutes } from './payments/payments.routes';
+import { deliveriesRoutes } from './deliveries/deliveries.routes';
 import { disputesRoutes } from './disputes/disputes.routes';
 import { adminRoutes } from './admin/admin.routes';
 import { reviewsRoutes } from './reviews/reviews.routes';

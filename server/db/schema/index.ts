@@ -10,3 +10,4 @@ export * from './payments';
 export * from './disputes';
 export * from './audit';
 export * from './reviews';
+export * from './deliveries';

@@ -29,7 +29,8 @@ export function createAdminRepository(db: Db) {
     accounts(q: string | undefined, limit: number, offset: number) {
       const where = q ? or(matches(users.email, q), matches(users.displayName, q), eq(users.id, q)) : undefined;
       // Bookings as any party, for a sense of how much an account is involved before disabling it.
-      const bookingCount = sql<number>`(select count(*) from ${bookings} where ${bookings.songwriterId} = ${users.id} or ${bookings.drummerId} = ${users.id} or ${bookings.engineerId} = ${users.id})`;
+      // Written out in full: inside a subquery Drizzle would leave the outer column unqualified ("id" = the booking's).
+      const bookingCount = sql<number>`(select count(*) from bookings b where b.songwriter_id = "users"."id" or b.drummer_id = "users"."id" or b.engineer_id = "users"."id")`;
       const rows = db
         .select({ user: users, bookings: bookingCount })
         .from(users)

@@ -179,6 +179,12 @@ async function receivedGuide(demo: DemoBrief): Promise<ReceivedFile> {
   };
 }
 
+/** The engineer's first mic package when the rooms step made one, else the engineer and a share by hand. */
+function engineerPart(state: SeedState, engineerKey: string): Partial<QuoteInput> {
+  const packageId = (state.micPackageIds as Record<string, string[]> | undefined)?.[engineerKey]?.[0];
+  return packageId ? { packageId } : { engineerId: state.userIds[engineerKey], engineerShareMinor: 15000 };
+}
+
 async function seedBrief(ctx: AppContext, state: SeedState, demo: DemoBrief): Promise<{ briefId: string; bookingId: string | null }> {
   const briefs = createBriefsService(ctx);
   const quotes = createQuotesService(ctx);
@@ -192,7 +198,7 @@ async function seedBrief(ctx: AppContext, state: SeedState, demo: DemoBrief): Pr
   briefs.invite(owner, draft.id, demo.invite.map((k) => ids[k]));
   const quoteIds: Record<string, string> = {};
   for (const q of demo.quotes) {
-    const engineer = q.engineer ? { engineerId: ids[q.engineer], engineerShareMinor: 15000 } : {};
+    const engineer = q.engineer ? engineerPart(state, q.engineer) : {};
     const quote = quotes.create(demoUser(ctx, ids[q.drummer]), draft.id, quoteInputSchema.parse({ ...q.quote, ...engineer }));
     quoteIds[q.drummer] = quote.id;
   }

@@ -235,8 +235,8 @@ export function createEscrowService(ctx: AppContext) {
         key: `intent:${intent.id}`,
         externalId: processorId,
         entries: [
-          { account: intent.fromAccount, amount: intent.amountMinor - (intent.kind === 'refund' ? 1 : 0) },
-          { account: ACCOUNTS.clearing, amount: -intent.amountMinor + (intent.kind === 'refund' ? 1 : 0) },
+          { account: intent.fromAccount, amount: intent.amountMinor },
+          { account: ACCOUNTS.clearing, amount: -intent.amountMinor },
         ],
       });
       tx.update(moneyIntents).set({ status: 'done', processorId, doneAt: new Date(), lastError: null }).where(eq(moneyIntents.id, intent.id)).run();

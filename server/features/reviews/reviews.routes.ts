@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { AppContext } from '../../app';
-import { requireUser } from '../../auth/middleware';
+import { requireSignedIn, requireUser } from '../../auth/middleware';
 import { bodyOf, queryOf, validateBody, validateQuery } from '../../http/validate';
 import { createReviewInputSchema, reviewsQuerySchema } from '@shared/schemas/reviews';
 import { createReviewsService } from './reviews.service';
@@ -15,7 +15,7 @@ export function reviewsRoutes(ctx: AppContext): Router {
     res.json(service.forBooking(requireUser(res), idOf(req)));
   });
 
-  r.post('/bookings/:id/reviews', validateBody(createReviewInputSchema), (req, res) => {
+  r.post('/bookings/:id/reviews', requireSignedIn, validateBody(createReviewInputSchema), (req, res) => {
     const user = requireUser(res);
     res.status(201).json({ review: service.create(user, idOf(req), bodyOf(res, createReviewInputSchema)) });
   });

@@ -13,12 +13,13 @@ export function queryTerms(q: string | undefined): string[] {
 }
 
 /**
- * An FTS5 MATCH expression where every term must appear (implicit AND), each as a prefix so "drum"
- * finds "drummer" and "funk" finds "funky"; null when nothing searchable is left.
+ * An FTS5 MATCH expression where every term must appear (implicit AND), each (but one-letter terms) as a
+ * prefix so "drum" finds "drummer" and "funk" finds "funky"; null when nothing searchable is left.
  */
 export function toFtsMatch(q: string | undefined): string | null {
   const terms = queryTerms(q);
   if (terms.length === 0) return null;
   // Terms hold only letters, marks and digits, so they never contain a double quote to escape.
-  return terms.map((t) => `"${t}"*`).join(' ');
+  // A one-letter prefix would expand to a large share of the vocabulary ("r"* of "r&b"): match it exactly.
+  return terms.map((t) => (t.length > 1 ? `"${t}"*` : `"${t}"`)).join(' ');
 }

@@ -1,5 +1,5 @@
 import type Database from 'better-sqlite3';
-import type { DrummerSearchItem, SearchSort } from '@shared/schemas/profiles';
+import { DRUM_STYLES, type DrummerSearchItem, type SearchSort } from '@shared/schemas/profiles';
 
 // Raw SQL on purpose: FTS5 MATCH and bm25() have no Drizzle builder, and the statements are prepared once
 // per filter shape and reused, which keeps a search at a few milliseconds over 10,000 profiles.
@@ -39,73 +39,96 @@ type Row = {
 
 // Weights per FTS column (name, headline, bio, styles, tags, kit): a name or headline hit says more than a bio hit.
 const RANK = 'bm25(drummer_fts, 8.0, 4.0, 1.0, 3.0, 2.0, 1.0)';
-const BY_RATING = '(p.rating_avg IS NULL), p.rating_avg DESC, p.rating_count DESC';
-const BY_AVAILABILITY = `p.taking_work DESC, ${BY_RATING}, p.updated_at DESC`;
+const BY_RATING = '(r.rating_avg IS NULL), r.rating_avg DESC, r.rating_count DESC';
+const BY_AVAILABILITY = `r.taking_work DESC, ${BY_RATING}, r.updated_at DESC`;
 
 function orderBy(sort: SearchSort, hasMatch: boolean): string {
   switch (sort) {
     case 'rate':
       // Rates compare only within one currency; without a currency filter, currencies group together.
-      return 'p.currency, p.base_rate_minor, p.turnaround_days';
+      return 'r.currency, r.base_rate_minor, r.turnaround_days';
     case 'turnaround':
-      return `p.turnaround_days, ${BY_AVAILABILITY}`;
+      return `r.turnaround_days, ${BY_AVAILABILITY}`;
     case 'rating':
-      return `${BY_RATING}, p.taking_work DESC`;
+      return `${BY_RATING}, r.taking_work DESC`;
     case 'best':
-      return hasMatch ? `${RANK}, p.taking_work DESC` : BY_AVAILABILITY;
+      return hasMatch ? `${RANK}, r.taking_work DESC` : BY_AVAILABILITY;
   }
+}
+
+/** The style's bit in drummer_search_rows.style_mask: its index in DRUM_STYLES (drizzle/0003 holds the same table). */
+export function styleBit(style: string): number {
+  const i = (DRUM_STYLES as readonly string[]).indexOf(style);
+  if (i < 0) throw new RangeError(`unknown style ${style}`);
+  return 2 ** i;
 }
 
 function whereOf(f: DrummerSearchFilters): { from: string; where: string[]; params: unknown[] } {
   const params: unknown[] = [];
   const where: string[] = [];
-  let from = 'drummer_profiles p';
+  // Only listed drummers have rows here (the triggers decide), so there is no "published" test to make.
+  let from = 'drummer_search_rows r';
   if (f.match) {
-    from = 'drummer_fts JOIN drummer_search_keys k ON k.rowid = drummer_fts.rowid JOIN drummer_profiles p ON p.user_id = k.user_id';
+    from = 'drummer_fts JOIN drummer_search_rows r ON r.rowid = drummer_fts.rowid';
     where.push('drummer_fts MATCH ?');
     params.push(f.match);
   }
-  from += ' JOIN users u ON u.id = p.user_id';
-  where.push("p.published = 1", "p.headline <> ''", 'u.disabled_at IS NULL');
   if (f.currency !== undefined) {
-    where.push('p.currency = ?');
+    where.push('r.currency = ?');
     params.push(f.currency);
   }
   if (f.maxRateMinor !== undefined) {
-    where.push('p.base_rate_minor <= ?');
+    where.push('r.base_rate_minor <= ?');
     params.push(f.maxRateMinor);
   }
   if (f.maxTurnaroundDays !== undefined) {
-    where.push('p.turnaround_days <= ?');
+    where.push('r.turnaround_days <= ?');
     params.push(f.maxTurnaroundDays);
   }
   if (f.takingWork !== undefined) {
-    where.push('p.taking_work = ?');
+    where.push('r.taking_work = ?');
     params.push(f.takingWork ? 1 : 0);
   }
   if (f.offsetRange) {
-    where.push('p.utc_offset_minutes BETWEEN ? AND ?');
+    where.push('r.utc_offset_minutes BETWEEN ? AND ?');
     params.push(f.offsetRange.min, f.offsetRange.max);
   }
   if (f.style !== undefined) {
-    // EXISTS, not IN (…): with IN the planner probes the whole style list once per FTS match.
-    where.push('EXISTS (SELECT 1 FROM drummer_styles s WHERE s.style = ? AND s.user_id = p.user_id)');
-    params.push(f.style);
+    where.push('(r.style_mask & ?) <> 0');
+    params.push(styleBit(f.style));
   }
   return { from, where, params };
 }
 
+function hasRowFilters(f: DrummerSearchFilters): boolean {
+  return [f.currency, f.maxRateMinor, f.maxTurnaroundDays, f.takingWork, f.offsetRange, f.style].some((v) => v !== undefined);
+}
+
 export function buildSearchSql(f: DrummerSearchFilters): { pageSql: string; countSql: string; params: unknown[] } {
   const { from, where, params } = whereOf(f);
-  const whereSql = where.join(' AND ');
-  const pageSql = `SELECT p.user_id AS id, u.display_name AS displayName, p.headline, p.styles,
-      p.base_rate_minor AS baseRateMinor, p.currency, p.turnaround_days AS turnaroundDays, p.taking_work AS takingWork,
-      p.town, p.country, p.time_zone AS timeZone, p.rating_avg AS ratingAvg, p.rating_count AS ratingCount,
-      (SELECT r.id FROM reel_tracks r WHERE r.drummer_id = p.user_id ORDER BY r.position, r.created_at LIMIT 1) AS reelTrackId
-    FROM ${from} WHERE ${whereSql} ORDER BY ${orderBy(f.sort, !!f.match)}, p.user_id LIMIT ? OFFSET ?`;
-  const countSql = `SELECT count(*) AS n FROM ${from} WHERE ${whereSql}`;
+  if (f.match && f.sort === 'best' && !hasRowFilters(f)) {
+    // Words only, best match: the full-text index answers alone (it holds only listed drummers), and the
+    // rows table is read for the page, not once per match — the commonest query, and the largest sets.
+    return {
+      pageSql: `SELECT r.user_id AS id FROM (SELECT rowid AS k, ${RANK} AS score FROM drummer_fts WHERE drummer_fts MATCH ? ORDER BY score, rowid LIMIT ? OFFSET ?) m
+        JOIN drummer_search_rows r ON r.rowid = m.k ORDER BY m.score, m.k`,
+      countSql: 'SELECT count(*) AS n FROM drummer_fts WHERE drummer_fts MATCH ?',
+      params,
+    };
+  }
+  const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+  const pageSql = `SELECT r.user_id AS id FROM ${from} ${whereSql} ORDER BY ${orderBy(f.sort, !!f.match)}, r.user_id LIMIT ? OFFSET ?`;
+  const countSql = `SELECT count(*) AS n FROM ${from} ${whereSql}`;
   return { pageSql, countSql, params };
 }
+
+// Display fields for one page of ids only, in one statement (the ids travel as a JSON array).
+const DETAILS_SQL = `SELECT p.user_id AS id, u.display_name AS displayName, p.headline, p.styles,
+    p.base_rate_minor AS baseRateMinor, p.currency, p.turnaround_days AS turnaroundDays, p.taking_work AS takingWork,
+    p.town, p.country, p.time_zone AS timeZone, p.rating_avg AS ratingAvg, p.rating_count AS ratingCount,
+    (SELECT t.id FROM reel_tracks t WHERE t.drummer_id = p.user_id ORDER BY t.position, t.created_at LIMIT 1) AS reelTrackId
+  FROM drummer_profiles p JOIN users u ON u.id = p.user_id
+  WHERE p.user_id IN (SELECT value FROM json_each(?))`;
 
 function toItem(row: Row): DrummerSearchItem {
   const item: DrummerSearchItem = {
@@ -142,13 +165,21 @@ export function createSearchRepository(sqlite: Database.Database) {
     return { ...s, params: built.params };
   }
 
+  const details = sqlite.prepare(DETAILS_SQL);
+
   return {
     search(f: DrummerSearchFilters): { items: DrummerSearchItem[]; total: number } {
       const { page, count, params } = prepared(f);
       const total = (count.get(...params) as { n: number }).n;
       // Past the last page there is nothing to fetch; the total still tells the client where the end is.
-      const rows = f.offset < total ? (page.all(...params, f.limit, f.offset) as Row[]) : [];
-      return { items: rows.map(toItem), total };
+      const ids = f.offset < total ? (page.all(...params, f.limit, f.offset) as { id: string }[]).map((r) => r.id) : [];
+      if (ids.length === 0) return { items: [], total };
+      const byId = new Map((details.all(JSON.stringify(ids)) as Row[]).map((row) => [row.id, row]));
+      const items = ids.flatMap((id) => {
+        const row = byId.get(id);
+        return row ? [toItem(row)] : [];
+      });
+      return { items, total };
     },
   };
 }

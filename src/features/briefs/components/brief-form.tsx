@@ -264,9 +264,9 @@ export function BriefForm({
             </label>
           </div>
           {lengthUnit === 'bars' ? (
-            <TextField label="Bars" inputMode="numeric" error={err('lengthBars')} {...register('lengthBars')} />
+            <TextField label="Length in bars" inputMode="numeric" error={err('lengthBars')} {...register('lengthBars')} />
           ) : (
-            <TextField label="Minutes:seconds" placeholder="3:45" error={err('lengthTime')} {...register('lengthTime')} />
+            <TextField label="Length (minutes:seconds)" placeholder="3:45" error={err('lengthTime')} {...register('lengthTime')} />
           )}
         </fieldset>
         <TextField label="Number of songs" inputMode="numeric" error={err('songCount')} {...register('songCount')} />
