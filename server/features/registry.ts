@@ -27,5 +27,6 @@ export const featureRoutes: FeatureRoutes[] = [
   messagesRoutes, notificationsRoutes,
   roomsFeatureRoutes,
   paymentsRoutes,
+  deliveriesRoutes,
   disputesRoutes, adminRoutes, reviewsRoutes,
 ];

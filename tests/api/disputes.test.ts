@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { startTestApp, type TestApp } from './helpers/test-app';
 import { bookingStatus, fundBooking, insertBooking, moveBooking, onboard, person, waitUntil, type BookingSpec, type Person } from './helpers/money';
-import { auditLog, autoAccepts, disputes } from '../../server/db/schema';
+import { auditLog, autoAccepts, disputes, users } from '../../server/db/schema';
 import { createLedger } from '../../server/features/ledger/ledger.service';
 import { scheduleAutoAccept } from '../../server/features/payments/auto-accept';
 import { escrowFor } from '../../server/features/payments/escrow.service';
@@ -253,7 +253,28 @@ describe('settling a dispute', () => {
     expect(row.status).toBe('settled');
     const refunds = (await app.kitlane.ctx.stripe.refunds.list({ limit: 100 })).data.filter((r) => r.metadata?.bookingId === id);
     expect(refunds.map((r) => r.amount)).toEqual([9_000]);
-    await waitUntil('the decision mail', () => app.mail?.messages().some((m) => m.subject.includes('decided') && m.text.includes('Even split after a crash.')));
+    await waitUntil('the decision mail', () => app.mail?.messages().some((m) => m.subject.includes('decided') && (m.text ?? '').includes('Even split after a crash.')));
     await expectBooksBalanced();
   });
+});
+
+describe('the demo seed', () => {
+  it('has one open dispute at the desk, one settled 70/30, and reviews on paid-out bookings', async () => {
+    const seeded = await startTestApp({ seed: true });
+    try {
+      const desk = seeded.client();
+      expect((await desk.post('/api/auth/login', { email: 'admin@kitlane.test', password: 'kitlane-demo-pass' })).status).toBe(200);
+      const open = await desk.get('/api/admin/disputes?status=open');
+      expect(open.body.items.map((d: { songTitle: string }) => d.songTitle)).toEqual(['Lamplight Verse']);
+      const settled = await desk.get('/api/admin/disputes?status=settled');
+      expect(settled.body.items).toEqual([expect.objectContaining({ songTitle: 'Glass Harbour', outcome: 'split', amounts: expect.objectContaining({ heldMinor: 30_000, songwriterMinor: 21_000, payeesMinor: 9_000 }) })]);
+      const juno = seeded.db.select().from(users).where(eq(users.email, 'juno@kitlane.test')).get()!;
+      const reviews = await desk.get(`/api/drummers/${juno.id}/reviews`);
+      expect(reviews.body).toMatchObject({ ratingAvg: 4, ratingCount: 1 });
+      const audit = await desk.get('/api/admin/audit');
+      expect(audit.body.items.map((e: { action: string }) => e.action).sort()).toEqual(['settle', 'split']);
+    } finally {
+      await seeded.close();
+    }
+  }, 120_000);
 });

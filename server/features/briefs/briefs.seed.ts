@@ -143,6 +143,42 @@ const DEMO_BRIEFS: DemoBrief[] = [
       },
     ],
   },
+  {
+    // Stays awaiting payment in the demo (the payments step funds the first booking only).
+    key: 'chalk-hill',
+    owner: 'mara',
+    brief: {
+      songTitle: 'Chalk Hill',
+      description: 'A short folk-rock song; guitar, bass and vocal are done.',
+      drumNotes: 'Floor-tom heavy verses, a straight backbeat in the chorus.',
+      style: 'folk',
+      tempoBpm: 132,
+      timeSignature: '4/4',
+      musicalKey: 'G major',
+      lengthBars: 72,
+      lengthSeconds: null,
+      songCount: 1,
+      referenceNotes: 'Roomy, a bit rough around the edges.',
+      sampleRate: 44100,
+      bitDepth: '24',
+      stemMode: 'every_mic',
+      roughMix: false,
+      budgetMinMinor: 10000,
+      budgetMaxMinor: 25000,
+      currency: 'GBP',
+      deadlineInDays: 18,
+      needsRoom: false,
+    },
+    guide: { seconds: 10, rootHz: 98 },
+    invite: ['kofi'],
+    quotes: [
+      {
+        drummer: 'kofi',
+        quote: { perSongFeeMinor: 16000, rushFeeMinor: 0, extraRevisionMinor: 3000, revisionsIncluded: 2, turnaroundDays: 5, rightsTerms: 'credit', message: 'Floor toms are my favourite thing.', validDays: 14 },
+      },
+    ],
+    accept: 'kofi',
+  },
 ];
 
 function demoUser(ctx: AppContext, id: string): CurrentUser {

@@ -101,8 +101,9 @@ export type UploadServer = { handler: RequestHandler; store: HashingFileStore; d
 export function createUploadServer(opts: { dir: string; path: string; maxFileBytes: number; authority: UploadAuthority }): UploadServer {
   const store = new HashingFileStore(opts.dir);
   const users = new WeakMap<IncomingMessage, CurrentUser>();
-  const userOf = (req: { runtime?: { node?: { req: IncomingMessage } } }): CurrentUser => {
-    const node = req.runtime?.node?.req;
+  const userOf = (req: object): CurrentUser => {
+    // srvx keeps the Node request the Express handler saw on `runtime.node.req`.
+    const node = (req as { runtime?: { node?: { req?: IncomingMessage } } }).runtime?.node?.req;
     const user = node ? users.get(node) : undefined;
     if (!user) tusError(new AppError('unauthorized', 'Sign in to continue', 401));
     return user;

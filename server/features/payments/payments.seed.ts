@@ -103,6 +103,7 @@ function hire(ctx: AppContext, state: SeedState, demo: DemoHire): { bookingId: s
     brief.id,
     quoteInputSchema.parse({ perSongFeeMinor: demo.feeMinor, rushFeeMinor: 0, extraRevisionMinor: 3_000, revisionsIncluded: 1, turnaroundDays: 6, rightsTerms: 'buyout', message: 'Glad to play this.', validDays: 14, ...engineer }),
   );
+  if (demo.engineer) quotes.engineerResponse(demoUser(ctx, ids[demo.engineer]), quote.id, true);
   const booking = quotes.accept(owner, quote.id);
   return { bookingId: booking.id, owner };
 }

@@ -12,5 +12,5 @@ export function roomQueryOptions(id: string) {
 }
 
 export function useRoom(id: string) {
-  return useQuery(roomQueryOptions(id));
+  return useQuery({ ...roomQueryOptions(id), enabled: id !== '' });
 }
