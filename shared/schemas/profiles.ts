@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { SUPPORTED_CURRENCIES, minorUnitExponent, type CurrencyCode } from '../money/currency';
 
 // Drummer and engineer profiles, and the public drummer search. Used by the server (validation) and
 // by the client (forms with zodResolver, URL filters), so every rule lives here once.
@@ -77,19 +78,19 @@ export const ENGINEER_SERVICE_LABELS: Record<EngineerService, string> = {
   'room-hire': 'Room hire',
 };
 
-/** Currencies a rate may be quoted in (ISO 4217). JPY has no minor unit. */
-export const RATE_CURRENCIES = ['USD', 'EUR', 'GBP', 'CAD', 'AUD', 'SEK', 'JPY'] as const;
-export type RateCurrency = (typeof RATE_CURRENCIES)[number];
+/** Currencies a rate may be quoted in: the platform's supported list (shared/money). */
+export const RATE_CURRENCIES = SUPPORTED_CURRENCIES;
+export type RateCurrency = CurrencyCode;
 
-/** Digits after the decimal point of a currency (0 for JPY), as the platform's Intl data knows it. */
-export function currencyExponent(currency: string): number {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+/**
+ * A search's "rate at most" as typed (e.g. 250.5, major units) → integer minor units of that currency.
+ * Rounded down: a filter limit, unlike a price, may be cut to the currency's precision.
+ */
+export function maxRateToMinor(amount: number, currency: string): number {
+  return Math.floor(amount * 10 ** minorUnitExponent(currency) + 1e-9);
 }
-
-/** A major-unit amount as typed by a person (e.g. 250.5) → integer minor units, never a float sum. */
-export function majorToMinor(amount: number, currency: string): number {
-  return Math.round(amount * 10 ** currencyExponent(currency));
-}
+/** The same conversion under its first name (the rooms search uses it for its day-rate limit). */
+export const majorToMinor = maxRateToMinor;
 
 export function isValidTimeZone(zone: string): boolean {
   try {

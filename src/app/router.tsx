@@ -7,6 +7,7 @@ import { briefQueryOptions } from '@/features/briefs/api/get-brief';
 import { briefQuotesQueryOptions } from '@/features/quotes/api/get-brief-quotes';
 import { quoteQueryOptions } from '@/features/quotes/api/get-quote';
 import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
+import { roomQueryOptions } from '@/features/rooms/api/get-room';
 import { RootLayout } from './routes/root';
 import { RouteError, RootError } from './routes/route-error';
 import type { ComingSoonHandle } from './routes/coming-soon';
@@ -33,6 +34,13 @@ const page = {
   bookings: () => import('./routes/bookings'),
   booking: () => import('./routes/booking-detail'),
   comingSoon: () => import('./routes/coming-soon'),
+  rooms: () => import('./routes/rooms'),
+  myRooms: () => import('./routes/my-rooms'),
+  newRoom: () => import('./routes/new-room'),
+  room: () => import('./routes/room-detail'),
+  editRoom: () => import('./routes/edit-room'),
+  newMicPackage: () => import('./routes/new-mic-package'),
+  editMicPackage: () => import('./routes/edit-mic-package'),
   messages: () => import('./routes/messages'),
   messageThread: () => import('./routes/message-thread'),
   notifications: () => import('./routes/notifications'),
@@ -42,9 +50,7 @@ const page = {
 /** Route stubs: navigation targets whose features later issues build. Each renders the one coming-soon page. */
 export const COMING_SOON: Array<{ path: string; title: string; description: string; signedIn: boolean }> = [
   { path: paths.findDrummers.path, title: 'Find drummers', description: 'Search session drummers by style, rate and turnaround.', signedIn: false },
-  { path: paths.rooms.path, title: 'Rooms', description: 'Rooms and mic packages that engineers offer for drum sessions.', signedIn: false },
   { path: paths.myProfile.path, title: 'My profile', description: 'What songwriters see about you: styles, kit, rates, reel and rooms.', signedIn: true },
-  { path: paths.myRooms.path, title: 'My rooms', description: 'Your rooms and mic packages, with their acoustics.', signedIn: true },
   { path: paths.adminDesk.path, title: 'Admin desk', description: 'Disputes, accounts and the money ledger.', signedIn: true },
 ];
 
@@ -121,6 +127,14 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.quote.path, lazy: page.quote, loader: prefetching((p) => queryClient.prefetchQuery(quoteQueryOptions(p.quoteId ?? ''))) },
             { path: paths.bookings.path, lazy: page.bookings, loader: requireSignedIn },
             { path: paths.booking.path, lazy: page.booking, loader: prefetching((p) => queryClient.prefetchQuery(bookingQueryOptions(p.bookingId ?? ''))) },
+            // Rooms are public listings (songwriters compare them); changing one needs a session.
+            { path: paths.rooms.path, lazy: page.rooms },
+            { path: paths.myRooms.path, lazy: page.myRooms, loader: requireSignedIn },
+            { path: paths.newRoom.path, lazy: page.newRoom, loader: requireSignedIn },
+            { path: paths.room.path, lazy: page.room, loader: ({ params }) => (void queryClient.prefetchQuery(roomQueryOptions(params.roomId ?? '')), null) },
+            { path: paths.editRoom.path, lazy: page.editRoom, loader: prefetching((p) => queryClient.prefetchQuery(roomQueryOptions(p.roomId ?? ''))) },
+            { path: paths.newMicPackage.path, lazy: page.newMicPackage, loader: prefetching((p) => queryClient.prefetchQuery(roomQueryOptions(p.roomId ?? ''))) },
+            { path: paths.editMicPackage.path, lazy: page.editMicPackage, loader: requireSignedIn },
             ...comingSoonRoutes,
             { path: '*', lazy: page.notFound },
           ],

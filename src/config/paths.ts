@@ -34,6 +34,11 @@ export const paths = {
   findDrummers: { path: '/drummers', getHref: () => '/drummers' },
   rooms: { path: '/rooms', getHref: () => '/rooms' },
   myRooms: { path: '/rooms/mine', getHref: () => '/rooms/mine' },
+  newRoom: { path: '/rooms/new', getHref: () => '/rooms/new' },
+  room: { path: '/rooms/:roomId', getHref: (id: string) => `/rooms/${encodeURIComponent(id)}` },
+  editRoom: { path: '/rooms/:roomId/edit', getHref: (id: string) => `/rooms/${encodeURIComponent(id)}/edit` },
+  newMicPackage: { path: '/rooms/:roomId/packages/new', getHref: (roomId: string) => `/rooms/${encodeURIComponent(roomId)}/packages/new` },
+  editMicPackage: { path: '/packages/:packageId/edit', getHref: (id: string) => `/packages/${encodeURIComponent(id)}/edit` },
   myProfile: { path: '/profile', getHref: () => '/profile' },
   myQuotes: { path: '/quotes', getHref: () => '/quotes' },
   messages: { path: '/messages', getHref: () => '/messages' },
@@ -43,6 +48,11 @@ export const paths = {
   // `mute` preselects one kind: the unsubscribe link at the foot of every notification mail.
   notificationSettings: { path: '/notifications/settings', getHref: (mute?: string) => (mute ? `/notifications/settings?mute=${encodeURIComponent(mute)}` : '/notifications/settings') },
   adminDesk: { path: '/admin', getHref: () => '/admin' },
+  adminDispute: { path: '/admin/disputes/:disputeId', getHref: (id: string) => `/admin/disputes/${encodeURIComponent(id)}` },
+  adminBookings: { path: '/admin/bookings', getHref: () => '/admin/bookings' },
+  adminAccounts: { path: '/admin/accounts', getHref: () => '/admin/accounts' },
+  adminLedger: { path: '/admin/ledger', getHref: (bookingId?: string) => (bookingId ? `/admin/ledger?booking=${encodeURIComponent(bookingId)}` : '/admin/ledger') },
+  adminAudit: { path: '/admin/audit', getHref: () => '/admin/audit' },
 } as const;
 
 export type PathName = keyof typeof paths;

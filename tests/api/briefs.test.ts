@@ -408,9 +408,8 @@ describe('the demo seed', () => {
     // The payments step funds this one; the money issue owns what happens after awaiting payment.
     expect(teosBookings.find((b) => b.terms.songTitle === 'Low Tide Motel')).toMatchObject({ currency: 'USD', totalMinor: 26000, drummer: { displayName: 'Odell Brisk' } });
     const mara = await signIn('mara@kitlane.test');
-    const marasBookings = (await mara.get('/api/bookings')).body.items;
-    expect(marasBookings).toHaveLength(1);
-    expect(marasBookings[0]).toMatchObject({ status: 'awaiting_payment', currency: 'GBP', totalMinor: 16000, drummer: { displayName: 'Kofi Arlen' }, terms: { songTitle: 'Chalk Hill' } });
+    const marasBookings = (await mara.get('/api/bookings')).body.items as { terms: { songTitle: string } }[];
+    expect(marasBookings.find((b) => b.terms.songTitle === 'Chalk Hill')).toMatchObject({ status: 'awaiting_payment', currency: 'GBP', totalMinor: 16000, drummer: { displayName: 'Kofi Arlen' }, terms: { songTitle: 'Chalk Hill' } });
     const mine = (await mara.get('/api/briefs/mine')).body.items as { songTitle: string }[];
     expect(mine.find((b) => b.songTitle === 'Paper Lanterns')).toMatchObject({ status: 'open', quoteCount: 2 });
     expect(mine.find((b) => b.songTitle === 'Chalk Hill')).toMatchObject({ status: 'hired', quoteCount: 1 });

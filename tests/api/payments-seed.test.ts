@@ -15,7 +15,7 @@ afterAll(async () => {
 describe('demo money', () => {
   it('seeds funded, delivered and paid-out bookings whose ledger reconciles with the processor', async () => {
     const statuses = app.db.select({ status: bookings.status }).from(bookings).all().map((b) => b.status);
-    expect(statuses).toEqual(expect.arrayContaining(['funded', 'delivered', 'paid_out']));
+    expect(statuses).toEqual(expect.arrayContaining(['awaiting_payment', 'funded', 'delivered', 'paid_out']));
     const ledger = createLedger(app.db);
     for (const total of ledger.balances().totals) expect(total.sum).toBe(0);
     const recon = await ledger.reconcile(app.kitlane.ctx.stripe);

@@ -5,7 +5,7 @@
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../../app';
 import type { CurrentUser } from '../../auth/middleware';
-import { bookings, users } from '../../db/schema';
+import { users } from '../../db/schema';
 import type { SeedState, SeedStep } from '../../db/seed-steps';
 import { briefInputSchema, todayIn } from '@shared/schemas/briefs';
 import { quoteInputSchema } from '@shared/schemas/quotes';
@@ -62,6 +62,7 @@ type DemoHire = { owner: string; drummer: string; engineer?: string; songTitle: 
 const HIRES: DemoHire[] = [
   { owner: 'teo', drummer: 'odell', songTitle: 'Night Ferry', currency: 'USD', feeMinor: 25_000, style: 'rock' },
   { owner: 'ines', drummer: 'pim', engineer: 'rune', songTitle: 'Salt Road', currency: 'EUR', feeMinor: 30_000, style: 'indie' },
+  { owner: 'teo', drummer: 'juno', songTitle: 'Quiet Harbour', currency: 'USD', feeMinor: 22_000, style: 'folk' },
 ];
 
 /** A brief, one quote and its acceptance, through the same services people use. */
@@ -119,11 +120,9 @@ export const paymentsSeedStep: SeedStep = {
     await onboardPayee(ctx, demoUser(ctx, ids.rune));
     // Pim is left without a payout account, so the demo shows the "connect payouts" prompt.
 
-    const existing = (state.bookingIds as string[] | undefined)?.[0];
-    if (existing) {
-      const row = ctx.db.select().from(bookings).where(eq(bookings.id, existing)).get();
-      if (row) await fund(ctx, demoUser(ctx, row.songwriterId), existing);
-    }
+    // The briefs step's booking stays awaiting payment, so the demo songwriter can try "Pay" on the fake's page.
+    const funded = hire(ctx, state, HIRES[2]);
+    await fund(ctx, funded.owner, funded.bookingId);
 
     const paidOut = hire(ctx, state, HIRES[0]);
     await fund(ctx, paidOut.owner, paidOut.bookingId);
@@ -140,6 +139,6 @@ export const paymentsSeedStep: SeedStep = {
       transitionBooking(tx, delivered.bookingId, ['recording'], 'delivered');
       scheduleAutoAccept(tx, delivered.bookingId, new Date());
     });
-    state.moneyBookingIds = { funded: existing ?? null, paidOut: paidOut.bookingId, delivered: delivered.bookingId };
+    state.moneyBookingIds = { funded: funded.bookingId, paidOut: paidOut.bookingId, delivered: delivered.bookingId };
   },
 };

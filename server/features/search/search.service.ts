@@ -1,5 +1,5 @@
 import type { DrummerSearchQuery, DrummerSearchResult } from '@shared/schemas/profiles';
-import { TZ_BANDS, majorToMinor } from '@shared/schemas/profiles';
+import { TZ_BANDS, maxRateToMinor } from '@shared/schemas/profiles';
 import type { DrummerSearchFilters, SearchRepository } from './search.repository';
 import { toFtsMatch } from './fts-query';
 
@@ -10,7 +10,7 @@ export function toSearchFilters(q: DrummerSearchQuery): DrummerSearchFilters {
     match: toFtsMatch(q.q),
     style: q.style,
     currency: q.currency,
-    maxRateMinor: q.maxRate !== undefined && q.currency ? majorToMinor(q.maxRate, q.currency) : undefined,
+    maxRateMinor: q.maxRate !== undefined && q.currency ? maxRateToMinor(q.maxRate, q.currency) : undefined,
     maxTurnaroundDays: q.maxTurnaround,
     takingWork: q.takingWork,
     offsetRange: band ? { min: band.minMinutes, max: band.maxMinutes } : undefined,

@@ -5,6 +5,7 @@ import { ProfileForm } from '@/features/auth/components/profile-form';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { EmailStatus } from '@/features/auth/components/email-status';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { PayoutSection } from '@/features/payments/components/payout-section';
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -54,6 +55,13 @@ export function Component() {
           <Section id="profile-title" title="Profile">
             <ProfileForm user={user} />
           </Section>
+          {user.roles.some((r) => r === 'drummer' || r === 'engineer') ? (
+            <div id="payouts">
+              <Section id="payouts-title" title="Payouts">
+                <PayoutSection />
+              </Section>
+            </div>
+          ) : null}
         </div>
         <div className="space-y-6">
           <Section id="email-title" title="Email">

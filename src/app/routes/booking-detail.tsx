@@ -7,6 +7,8 @@ import { BookingStatusBadge } from '@/features/bookings/components/booking-statu
 import { BookingTerms } from '@/features/bookings/components/booking-terms';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { EscrowPanel } from '@/features/payments/components/escrow-panel';
+import { BookingRoomPanels } from '@/features/session-prep/components/booking-room-panels';
 
 export function Component() {
   const { bookingId = '' } = useParams();
@@ -40,7 +42,9 @@ export function Component() {
                   : 'Waiting for the songwriter to pay into escrow. You will be told when the booking is funded.'}
               </Alert>
             ) : null}
+            <EscrowPanel bookingId={b.id} />
             <BookingTerms booking={b} />
+            <BookingRoomPanels bookingId={b.id} />
           </>
         );
       }}

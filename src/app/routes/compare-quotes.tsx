@@ -11,6 +11,7 @@ import { QuoteStatusBadge } from '@/features/quotes/components/quote-status-badg
 import { LegalCaution, LineItems, RightsText } from '@/features/quotes/components/quote-terms';
 import { dateText } from '@/features/briefs/components/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { QuotePackageSummary } from '@/features/mic-packages/components/quote-package-summary';
 
 function QuoteColumn({ quote, briefOpen }: { quote: QuoteComparison; briefOpen: boolean }) {
   const accept = useAcceptQuote();
@@ -50,6 +51,7 @@ function QuoteColumn({ quote, briefOpen }: { quote: QuoteComparison; briefOpen: 
           Engineer: {quote.engineer.displayName} ({quote.engineer.status})
         </p>
       ) : null}
+      <QuotePackageSummary packageId={quote.packageId} />
       {quote.drummer.reelTrackId ? (
         <div className="text-sm">
           <p className="font-medium">Reel: {quote.drummer.reelTrackTitle}</p>

@@ -33,6 +33,17 @@ function BackLink() {
   );
 }
 
+/** Where the conversation's subject lives: the booking after hiring, the brief before. */
+function AboutLink({ briefId, bookingId }: { briefId: string | null; bookingId: string | null }) {
+  const href = bookingId ? paths.booking.getHref(bookingId) : briefId ? paths.brief.getHref(briefId) : null;
+  if (!href) return null;
+  return (
+    <Link to={href} className="font-medium text-brand-800 underline underline-offset-2">
+      {bookingId ? 'Open the booking' : 'Open the brief'}
+    </Link>
+  );
+}
+
 export function Component() {
   const { threadId = '' } = useParams();
   const { user } = useMe();
@@ -70,6 +81,7 @@ export function Component() {
         <h1 className="text-3xl font-bold tracking-tight text-ink">{detail.subject}</h1>
         <p className="flex flex-wrap items-center gap-2 text-ink-muted">
           <Badge tone="brand">{detail.kind === 'booking' ? 'Booking' : 'Brief'}</Badge>
+          <AboutLink bookingId={detail.bookingId} briefId={detail.briefId} />
           <span>
             With{' '}
             {others.length

@@ -10,6 +10,7 @@ import { useRespondAsEngineer, useWithdrawQuote } from '@/features/quotes/api/qu
 import { QuoteStatusBadge } from '@/features/quotes/components/quote-status-badge';
 import { LegalCaution, LineItems, RightsText } from '@/features/quotes/components/quote-terms';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { QuotePackageSummary } from '@/features/mic-packages/components/quote-package-summary';
 
 export function Component() {
   const { quoteId = '' } = useParams();
@@ -46,6 +47,7 @@ export function Component() {
                     Engineer {q.engineer.displayName}: {formatMoney(q.engineer.shareMinor, q.currency)} ({q.engineer.status})
                   </p>
                 ) : null}
+                <QuotePackageSummary packageId={q.packageId} />
               </Card>
               <Card className="space-y-3">
                 <h2 className="text-xl font-bold">Terms</h2>

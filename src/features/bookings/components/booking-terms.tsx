@@ -14,6 +14,15 @@ function Row({ term, children }: { term: string; children: React.ReactNode }) {
   );
 }
 
+function Share({ who, amount }: { who: string; amount: string }) {
+  return (
+    <div className="flex justify-between gap-3 py-1.5">
+      <dt>{who}</dt>
+      <dd className="tabular-nums">{amount}</dd>
+    </div>
+  );
+}
+
 /** The frozen copy of what was agreed when the quote was accepted. */
 export function BookingTerms({ booking }: { booking: BookingView }) {
   const t = booking.terms;
@@ -23,9 +32,10 @@ export function BookingTerms({ booking }: { booking: BookingView }) {
       <Card>
         <h2 className="mb-3 text-xl font-bold">Price</h2>
         <LineItems items={t.lineItems} totalMinor={t.totalMinor} currency={t.currency} extraRevisionMinor={t.extraRevisionMinor} />
-        <dl className="mt-4 divide-y divide-line">
-          <Row term={`${booking.drummer.displayName} (drummer)`}>{formatMoney(booking.drummerShareMinor, booking.currency)}</Row>
-          {booking.engineer ? <Row term={`${booking.engineer.displayName} (engineer)`}>{formatMoney(booking.engineerShareMinor, booking.currency)}</Row> : null}
+        <h3 className="mt-5 font-bold">Shares of the total</h3>
+        <dl className="mt-1 divide-y divide-line">
+          <Share who={`${booking.drummer.displayName} (drummer)`} amount={formatMoney(booking.drummerShareMinor, booking.currency)} />
+          {booking.engineer ? <Share who={`${booking.engineer.displayName} (engineer)`} amount={formatMoney(booking.engineerShareMinor, booking.currency)} /> : null}
         </dl>
         <p className="mt-3 text-sm text-ink-muted">The service fee is added at checkout.</p>
       </Card>

@@ -68,7 +68,7 @@ export function PackageEditor({ room, initial, submitLabel, onSubmit }: { room: 
   // The form always holds every field (defaults are filled in), so the schema's input and output types agree here.
   const resolver = useMemo(() => zodResolver(schema) as unknown as Resolver<MicPackageInput>, [schema]);
   const form = useForm<MicPackageInput>({ resolver, defaultValues: initial, mode: 'onChange' });
-  const { register, control, handleSubmit, watch, setError, setValue, trigger, formState } = form;
+  const { register, control, handleSubmit, watch, setError, trigger, formState } = form;
   const channels = useFieldArray({ control, name: 'channels' });
   const values = watch('channels');
   const currency = watch('currency');
@@ -83,7 +83,7 @@ export function PackageEditor({ room, initial, submitLabel, onSubmit }: { room: 
   function reorder(from: number, to: number, focus: boolean) {
     if (to < 0 || to >= values.length || from === to) return;
     const label = SOURCES[values[from].source].label;
-    setValue('channels', moveChannel(values, from, to), { shouldDirty: true });
+    channels.replace(moveChannel(values, from, to));
     void trigger('channels');
     setAnnouncement(`${label} moved to position ${to + 1} of ${values.length}.`);
     if (focus) requestAnimationFrame(() => rowRefs.current[to]?.focus());
@@ -123,7 +123,7 @@ export function PackageEditor({ room, initial, submitLabel, onSubmit }: { room: 
   };
 
   function applyTemplate(id: TemplateId) {
-    setValue('channels', templateChannels(id), { shouldDirty: true });
+    channels.replace(templateChannels(id));
     void trigger('channels');
     setAnnouncement(`Started from the ${id.replace('_', ' ').replace('_channel', '')}-channel template.`);
   }

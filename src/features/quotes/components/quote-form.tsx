@@ -126,7 +126,7 @@ export function QuoteForm({ brief, onSend, busy }: { brief: BriefView; onSend: (
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-6">
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <div className="grid gap-5 sm:grid-cols-3">
+      <div className="grid gap-5 sm:grid-cols-2">
         <TextField
           label={`Fee per song (${c})`}
           inputMode="decimal"

@@ -1,0 +1,83 @@
+// Lighthouse (performance + accessibility) on the built client served by the real server, with Debian's
+// Chromium: the home page, the drummer search (/drummers) and a review page (a songwriter's booking, where
+// delivered stems are reviewed — signed in through the session cookie). Desktop preset (no mobile CPU/network
+// throttling): Kitlane's review work happens at a desk with studio monitors. Targets: performance ≥ 0.9,
+// accessibility 1.0 (issue 7).
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { parseEnv } from '../server/env';
+import { boot, type Running } from '../server/boot';
+import { buildClient } from './bundle';
+
+export const LIGHTHOUSE_TARGETS = { performance: 0.9, accessibility: 1 };
+export const CHROMIUM = '/usr/bin/chromium';
+const CHROME_FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+export type LighthousePage = { name: string; path: string; performance: number | null; accessibility: number | null; failedA11y: string[] };
+export type LighthouseBenchResult = { pages: LighthousePage[]; preset: string };
+
+const DEMO_SONGWRITER = 'mara@kitlane.test';
+
+async function signIn(base: string, email: string, password: string): Promise<string> {
+  const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  if (res.status !== 200) throw new Error(`demo sign-in answered ${res.status}`);
+  const cookie = res.headers.getSetCookie().find((c) => c.startsWith('kitlane_session='));
+  if (!cookie) throw new Error('demo sign-in set no session cookie');
+  return cookie.split(';')[0];
+}
+
+/** The songwriter's booking furthest along (a delivered one has stems to review). */
+async function reviewPath(base: string, cookie: string): Promise<string> {
+  const res = await fetch(`${base}/api/bookings`, { headers: { cookie } });
+  const body = (await res.json()) as { items?: { id: string; status: string }[] };
+  const items = body.items ?? [];
+  const order = ['delivered', 'changes_requested', 'accepted', 'paid_out', 'recording', 'funded', 'disputed', 'settled'];
+  const best = [...items].sort((a, b) => (order.indexOf(a.status) + 99) % 99 - (order.indexOf(b.status) + 99) % 99)[0];
+  if (!best) throw new Error('the demo songwriter has no booking to review');
+  return `/bookings/${best.id}`;
+}
+
+async function audit(url: string, port: number, cookie: string | null): Promise<Omit<LighthousePage, 'name' | 'path'>> {
+  const { default: lighthouse } = await import('lighthouse');
+  const { default: desktopConfig } = await import('lighthouse/core/config/desktop-config.js');
+  const result = await lighthouse(url, { port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}) }, desktopConfig);
+  if (!result) throw new Error(`lighthouse returned nothing for ${url}`);
+  const lhr = result.lhr;
+  const a11yRefs = lhr.categories.accessibility?.auditRefs ?? [];
+  const failedA11y = a11yRefs.filter((ref) => ref.weight > 0 && (lhr.audits[ref.id]?.score ?? 1) < 1).map((ref) => ref.id);
+  return { performance: lhr.categories.performance?.score ?? null, accessibility: lhr.categories.accessibility?.score ?? null, failedA11y };
+}
+
+export async function runLighthouseBench(opts: { distDir?: string } = {}): Promise<LighthouseBenchResult> {
+  const distDir = opts.distDir ?? (await buildClient());
+  const dataDir = mkdtempSync(join(tmpdir(), 'kitlane-bench-lh-'));
+  let running: Running | null = null;
+  const { launch } = await import('chrome-launcher');
+  const chrome = await launch({ chromePath: CHROMIUM, chromeFlags: CHROME_FLAGS });
+  try {
+    const env = parseEnv({ ...process.env, NODE_ENV: 'production', DATA_DIR: dataDir, SEED_DEMO: 'true', LOG_LEVEL: 'silent', PORT: '0' });
+    // APP_URL follows the random port so the same-origin guard and links match what Chromium opens.
+    running = await boot({ env, randomPorts: true, quiet: true, appDeps: { clientDist: distDir } });
+    const base = running.url;
+    const cookie = await signIn(base, DEMO_SONGWRITER, env.DEMO_PASSWORD);
+    const pages: { name: string; path: string; cookie: string | null }[] = [
+      { name: 'home', path: '/', cookie: null },
+      { name: 'search', path: '/drummers', cookie: null },
+      { name: 'review', path: await reviewPath(base, cookie), cookie },
+    ];
+    const out: LighthousePage[] = [];
+    for (const page of pages) out.push({ name: page.name, path: page.path, ...(await audit(base + page.path, chrome.port, page.cookie)) });
+    return { pages: out, preset: 'desktop' };
+  } finally {
+    await running?.close();
+    chrome.kill();
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
+  const r = await runLighthouseBench();
+  console.table(Object.fromEntries(r.pages.map((p) => [p.name, { path: p.path, performance: p.performance, accessibility: p.accessibility, failing: p.failedA11y.join(' ') }])));
+}
