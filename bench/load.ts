@@ -231,7 +231,7 @@ async function trafficPlan(url: string, dataDir: string): Promise<AutocannonRequ
   const plan: AutocannonRequest[] = [];
   for (let i = 0; i < 20; i++) {
     const word = SEARCH_WORDS[i % SEARCH_WORDS.length];
-    plan.push({ path: `/api/drummers?${new URLSearchParams(word ? { q: word } : { sort: 'rate_asc' })}` });
+    plan.push({ path: `/api/drummers?${new URLSearchParams(word ? { q: word } : { sort: 'rate' })}` });
     plan.push({ path: `/api/drummers/${drummerIds[(i * 37) % drummerIds.length]}` });
     const poll = i % polling.length;
     plan.push({ path: `/api/threads/${polling[poll].threadId}/messages`, headers: { cookie: cookies[poll] } });

@@ -7,6 +7,7 @@ import { briefQueryOptions } from '@/features/briefs/api/get-brief';
 import { briefQuotesQueryOptions } from '@/features/quotes/api/get-brief-quotes';
 import { quoteQueryOptions } from '@/features/quotes/api/get-quote';
 import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
+import { deliveryQueryOptions } from '@/features/deliveries/api/get-delivery';
 import { roomQueryOptions } from '@/features/rooms/api/get-room';
 import { RootLayout } from './routes/root';
 import { RouteError, RootError } from './routes/route-error';
@@ -33,6 +34,7 @@ const page = {
   quote: () => import('./routes/quote-detail'),
   bookings: () => import('./routes/bookings'),
   booking: () => import('./routes/booking-detail'),
+  delivery: () => import('./routes/delivery'),
   comingSoon: () => import('./routes/coming-soon'),
   rooms: () => import('./routes/rooms'),
   myRooms: () => import('./routes/my-rooms'),
@@ -127,6 +129,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.quote.path, lazy: page.quote, loader: prefetching((p) => queryClient.prefetchQuery(quoteQueryOptions(p.quoteId ?? ''))) },
             { path: paths.bookings.path, lazy: page.bookings, loader: requireSignedIn },
             { path: paths.booking.path, lazy: page.booking, loader: prefetching((p) => queryClient.prefetchQuery(bookingQueryOptions(p.bookingId ?? ''))) },
+            { path: paths.delivery.path, lazy: page.delivery, loader: prefetching((p) => queryClient.prefetchQuery(deliveryQueryOptions(p.deliveryId ?? ''))) },
             // Rooms are public listings (songwriters compare them); changing one needs a session.
             { path: paths.rooms.path, lazy: page.rooms },
             { path: paths.myRooms.path, lazy: page.myRooms, loader: requireSignedIn },

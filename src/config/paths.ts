@@ -30,6 +30,7 @@ export const paths = {
   compareQuotes: { path: '/briefs/:briefId/quotes', getHref: (id: string) => `/briefs/${encodeURIComponent(id)}/quotes` },
   quote: { path: '/quotes/:quoteId', getHref: (id: string) => `/quotes/${encodeURIComponent(id)}` },
   booking: { path: '/bookings/:bookingId', getHref: (id: string) => `/bookings/${encodeURIComponent(id)}` },
+  delivery: { path: '/deliveries/:deliveryId', getHref: (id: string) => `/deliveries/${encodeURIComponent(id)}` },
   openBriefs: { path: '/briefs', getHref: (search?: string) => (search ? `/briefs?${search}` : '/briefs') },
   findDrummers: { path: '/drummers', getHref: () => '/drummers' },
   rooms: { path: '/rooms', getHref: () => '/rooms' },

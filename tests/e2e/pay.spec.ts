@@ -58,6 +58,7 @@ describe('paying into escrow in the browser', () => {
     problems.ignoreConsoleError(/\/api\/bookings\/[^/]+\/prep/);
     await page.goto(`${server.url}/bookings`);
     await page.getByRole('link', { name: 'Low Tide Motel' }).click();
+    await page.waitForURL(/\/bookings\/[^/?]+$/);
     const bookingPage = page.url();
     const panel = moneyPanel(page);
     await expect.poll(() => panel.getByText('Awaiting payment').count(), { timeout: 10_000 }).toBeGreaterThan(0);

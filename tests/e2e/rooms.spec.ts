@@ -67,19 +67,19 @@ describe('rooms and mic packages in the browser', () => {
     await signIn(page, ENGINEER);
     await page.goto(`${server.url}/rooms/new`);
     await eventually(() => h1(page)).toBe('List a room');
-    await page.getByLabel('Name').fill(roomName);
-    await page.getByLabel('Town').fill('Vessary');
-    await page.getByLabel('Inputs (preamps)').fill('12');
-    await page.getByLabel('Day rate (USD)').fill('320');
-    await page.getByLabel('Half-day rate (USD)').fill('180');
-    await page.getByLabel('Length (m)').fill('7');
-    await page.getByLabel('Width (m)').fill('5.5');
-    await page.getByLabel('Height (m)').fill('3.2');
+    await page.getByLabel('Name', { exact: true }).fill(roomName);
+    await page.getByLabel('Town', { exact: true }).fill('Vessary');
+    await page.getByLabel('Inputs (preamps)', { exact: true }).fill('12');
+    await page.getByLabel('Day rate (USD)', { exact: true }).fill('320');
+    await page.getByLabel('Half-day rate (USD)', { exact: true }).fill('180');
+    await page.getByLabel('Length (m)', { exact: true }).fill('7');
+    await page.getByLabel('Width (m)', { exact: true }).fill('5.5');
+    await page.getByLabel('Height (m)', { exact: true }).fill('3.2');
     await page.getByLabel('Floor', { exact: true }).selectOption('heavy_carpet_on_concrete');
     await page.getByLabel('Ceiling', { exact: true }).selectOption('__custom');
-    await page.getByLabel('125 Hz').fill('0.3');
+    await page.getByLabel('125 Hz', { exact: true }).fill('0.3');
     await page.getByRole('button', { name: 'Add a panel' }).click();
-    await page.getByLabel('Area (m²)').fill('1.5');
+    await page.getByLabel('Area (m²)', { exact: true }).fill('1.5');
     await screenshot(page, 'room-form-desktop');
     await expectAxeClean(page, 'the room form');
     await page.getByRole('button', { name: 'Save the room' }).click();
@@ -107,8 +107,8 @@ describe('rooms and mic packages in the browser', () => {
     await page.getByRole('link', { name: 'Make a mic package' }).click();
     await eventually(() => h1(page)).toBe('New mic package');
     packageName = `Cedar twelve ${Date.now()}`;
-    await page.getByLabel('Package name').fill(packageName);
-    await page.getByLabel('Price (USD)').fill('95');
+    await page.getByLabel('Package name', { exact: true }).fill(packageName);
+    await page.getByLabel('Price (USD)', { exact: true }).fill('95');
     await page.getByRole('button', { name: '12 channels' }).click();
     const rows = page.locator('[data-channel-index]');
     await eventually(() => rows.count()).toBe(12);
@@ -123,8 +123,8 @@ describe('rooms and mic packages in the browser', () => {
     await rows.first().focus();
     await page.keyboard.press('Alt+ArrowDown');
     await eventually(() => page.getByTestId('reorder-announcement').innerText()).toBe('Kick in moved to position 2 of 12.');
-    expect(await rows.nth(0).getByLabel('Source').inputValue()).toBe('kick_out');
-    expect(await rows.nth(1).getByLabel('Source').inputValue()).toBe('kick_in');
+    expect(await rows.nth(0).getByLabel('Source', { exact: true }).inputValue()).toBe('kick_out');
+    expect(await rows.nth(1).getByLabel('Source', { exact: true }).inputValue()).toBe('kick_in');
 
     // A thirteenth channel is more than the room's 12 inputs: a field error, cleared again on removal.
     await page.getByRole('button', { name: 'Add a channel' }).click();

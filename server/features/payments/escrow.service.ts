@@ -13,7 +13,7 @@ import { bookingPayments, bookings, ledgerEntries, ledgerTransactions, moneyInte
 import type { CurrentUser } from '../../auth/middleware';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error';
 import { can } from '@shared/permissions';
-import { checkoutTotal, MoneyError, serviceFeeFor } from '@shared/money';
+import { checkoutTotal, formatMoney, MoneyError, serviceFeeFor } from '@shared/money';
 import type { BookingStatus } from '@shared/schemas/bookings';
 import type { RefundInput, ReleaseInput, SplitInput } from '@shared/schemas/payments';
 import { inTransaction } from '../briefs/in-transaction';
@@ -610,7 +610,7 @@ export function createEscrowService(ctx: AppContext) {
     applyPlan(tx, row, partial, { key: `outcome:${keyOf(row, 'partial-refund')}`, memo: `Partly refunded: ${reason}`, feeRefundMinor: 0, reason });
     // The version moves on so a repeated click with the old version is refused instead of refunding twice.
     tx.update(bookings).set({ version: sql`${bookings.version} + 1`, updatedAt: new Date() }).where(eq(bookings.id, row.id)).run();
-    notifyParties(tx, row, 'Part of the payment refunded', `${amountMinor} minor units of ${row.currency} for "${row.terms.songTitle}" go back to the songwriter (${reason}).`);
+    notifyParties(tx, row, 'Part of the payment refunded', `${formatMoney(amountMinor, row.currency)} for "${row.terms.songTitle}" goes back to the songwriter (${reason}).`);
     return { refundedMinor: amountMinor };
   }
 
@@ -633,7 +633,7 @@ export function createEscrowService(ctx: AppContext) {
       const intents = outcome.heldMinor > 0 ? applyPlan(tx, moved, outcome, { key: `outcome:${moved.id}`, memo: `Split: ${input.reason}`, feeRefundMinor: 0, reason: input.reason }) : [];
       repo.updateMoney(tx, moved.id, { outcome: 'split' });
       cancelAutoAccept(tx, moved.id);
-      notifyParties(tx, moved, 'Dispute settled by a split', `Of ${held} minor units of ${moved.currency} held for "${moved.terms.songTitle}", ${outcome.refundMinor} go back to the songwriter and ${outcome.releasedMinor} are released to the payees (less ${outcome.commissionMinor} commission).`);
+      notifyParties(tx, moved, 'Dispute settled by a split', `Of ${formatMoney(held, moved.currency)} held for "${moved.terms.songTitle}", ${formatMoney(outcome.refundMinor, moved.currency)} goes back to the songwriter and ${formatMoney(outcome.releasedMinor, moved.currency)} is released to the payees (less ${formatMoney(outcome.commissionMinor, moved.currency)} commission).`);
       tellAboutWaitingPayees(tx, moved, intents);
       return outcome;
     });

@@ -3,7 +3,7 @@
 import type { Db } from '../../db/client';
 import type { CurrentUser } from '../../auth/middleware';
 import { can } from '@shared/permissions';
-import { checkoutTotal, serviceFeeFor } from '@shared/money';
+import { checkoutTotal, formatMoney, serviceFeeFor } from '@shared/money';
 import { MONEY_NOTICE, type BookingMoneyView, type EscrowStage, type ReceiptView } from '@shared/schemas/payments';
 import { escrowHeld } from '../ledger/ledger.service';
 import { paymentsRepo as repo, type BookingRow, type IntentRow, type PaymentRow } from './payments.repository';
@@ -26,7 +26,10 @@ function receiptsFor(user: CurrentUser, booking: BookingRow, payments: PaymentRo
   for (const p of payments.filter((x) => x.status === 'paid' && isSongwriter)) {
     receipts.push({
       id: p.id,
-      title: p.kind === 'add_on' ? `Paid: ${p.units} extra revision${p.units === 1 ? '' : 's'} (${p.workMinor}) + service fee (${p.feeMinor})` : `Paid: agreed total (${p.workMinor}) + service fee (${p.feeMinor})`,
+      title:
+        p.kind === 'add_on'
+          ? `Paid: ${p.units} extra revision${p.units === 1 ? '' : 's'} (${formatMoney(p.workMinor, p.currency)}) + service fee (${formatMoney(p.feeMinor, p.currency)})`
+          : `Paid: agreed total (${formatMoney(p.workMinor, p.currency)}) + service fee (${formatMoney(p.feeMinor, p.currency)})`,
       amountMinor: p.amountMinor,
       currency: p.currency,
       at: (p.paidAt ?? p.createdAt).toISOString(),

@@ -20,7 +20,7 @@ function verify(ctx: AppContext, raw: unknown, signature: string | undefined): S
 function declineReason(intent: Stripe.PaymentIntent): string {
   const error = intent.last_payment_error;
   if (!error) return 'The card was declined';
-  return [error.message, error.decline_code ? `(${error.decline_code})` : error.code ? `(${error.code})` : ''].filter(Boolean).join(' ');
+  return [error.message?.replace(/\.$/, ''), error.decline_code ? `(${error.decline_code})` : error.code ? `(${error.code})` : ''].filter(Boolean).join(' ');
 }
 
 async function handle(ctx: AppContext, event: Stripe.Event): Promise<void> {

@@ -8,6 +8,7 @@ import { BookingTerms } from '@/features/bookings/components/booking-terms';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { EscrowPanel } from '@/features/payments/components/escrow-panel';
+import { DeliveriesPanel } from '@/features/deliveries/components/deliveries-panel';
 import { BookingRoomPanels } from '@/features/session-prep/components/booking-room-panels';
 
 export function Component() {
@@ -43,6 +44,7 @@ export function Component() {
               </Alert>
             ) : null}
             <EscrowPanel bookingId={b.id} />
+            <DeliveriesPanel bookingId={b.id} />
             <BookingTerms booking={b} />
             <BookingRoomPanels bookingId={b.id} />
           </>

@@ -85,7 +85,7 @@ export function Component() {
               </h2>
               <Packages roomId={r.id} mine={r.mine && !r.archived} />
             </section>
-            <div className="grid gap-6 lg:grid-cols-2">
+            <div className="grid items-start gap-6 lg:grid-cols-2">
               <Card className="space-y-3">
                 <h2 className="text-xl font-bold">Calendar</h2>
                 <BlockedDatesCalendar

@@ -1,5 +1,5 @@
 import { useRef, useState, type DragEvent } from 'react';
-import { DRUM_PARTS, getPart, suggestPart } from '@shared/stems/parts';
+import { DRUM_PARTS, getPart, isPartId, suggestPart, type PartId } from '@shared/stems/parts';
 import { DELIVERY_ACCEPT, type DeliveryFileView, type DeliveryListView, type DeliveryView } from '@shared/schemas/deliveries';
 import { Alert, Button, Card, cx } from '@/components/ui';
 import { isApiError } from '@/lib/api-client';
@@ -106,12 +106,13 @@ export function UploadPanel({ delivery, inputList }: { delivery: DeliveryView; i
   );
 }
 
-function partFor(name: string, inputList: InputList, files: DeliveryFileView[]): string | null {
+function partFor(name: string, inputList: InputList, files: DeliveryFileView[]): PartId | null {
   const suggested = suggestPart(name);
   if (suggested) return suggested;
   // Nothing in the name: take the first package channel no file covers yet.
   const taken = new Set(files.map((f) => f.part));
-  return inputList.find((c) => !taken.has(c.part))?.part ?? null;
+  const free = inputList.find((c) => !taken.has(c.part))?.part;
+  return free && isPartId(free) ? free : null;
 }
 
 function ExpectedStems({ inputList, files }: { inputList: InputList; files: DeliveryFileView[] }) {

@@ -2,6 +2,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Upload } from 'tus-js-client';
 import { deliveryPaths } from '@shared/schemas/deliveries';
+import type { PartId } from '@shared/stems/parts';
 import { deliveryQueryOptions } from '../api/get-delivery';
 import { addDeliveryFile, removeDeliveryFile } from '../api/delivery-files';
 
@@ -75,7 +76,7 @@ export function useStemUploads(deliveryId: string) {
 
   /** Starts a new file, or with `existingFileId` picks up a file whose upload an earlier visit left unfinished. */
   const add = useCallback(
-    async (file: File, part: string | null, existingFileId?: string): Promise<void> => {
+    async (file: File, part: PartId | null, existingFileId?: string): Promise<void> => {
       const id = existingFileId ?? (await addDeliveryFile(deliveryId, { name: file.name, sizeBytes: file.size, part })).id;
       files.current.set(id, file);
       setStates((all) => ({ ...all, [id]: { fileId: id, name: file.name, phase: 'starting', sent: 0, total: file.size, bytesPerSecond: 0, error: null } }));

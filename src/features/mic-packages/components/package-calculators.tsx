@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import { closeMicOverheadOffsets, delayForDistance, SOURCES, threeToOneChecks } from '@shared/mic-package';
+import { closeMicOverheadOffsets, delayForDistance, KIT_NEIGHBOURS, neighbourKey, SOURCES, threeToOneChecks } from '@shared/mic-package';
 import type { MicChannelInput } from '@shared/schemas/mic-packages';
 import { Card } from '@/components/ui';
 import { fieldClasses } from '@/components/ui/text-field';
@@ -20,7 +20,10 @@ export function PackageCalculators({ channels }: { channels: MicChannelInput[] }
   const cm = Number(distance);
   const delay = distance.trim() !== '' && Number.isFinite(cm) ? delayForDistance(cm, { sampleRate: rate }) : null;
   const offsets = closeMicOverheadOffsets(channels, { sampleRate: rate });
-  const checks = threeToOneChecks(channels);
+  const [spacings, setSpacings] = useState<Record<string, string>>({});
+  const present = KIT_NEIGHBOURS.filter((n) => channels.some((c) => c.source === n.a) && channels.some((c) => c.source === n.b));
+  const spacingCm = Object.fromEntries(Object.entries(spacings).map(([k, v]) => [k, Number(v)]).filter(([, v]) => Number.isFinite(v) && (v as number) > 0));
+  const checks = threeToOneChecks(channels, spacingCm);
   const failing = checks.filter((c) => !c.ok);
   return (
     <div className="space-y-4">
@@ -95,6 +98,30 @@ export function PackageCalculators({ channels }: { channels: MicChannelInput[] }
         <h3 className="text-lg font-bold">3:1 check (common practice)</h3>
         <p className="text-sm text-ink-muted">Neighbouring close mics should be at least three times as far from each other as each is from its own drum.</p>
         {checks.length === 0 ? <p>No neighbouring close mics with distances yet.</p> : null}
+        {present.length > 0 ? (
+          <details>
+            <summary className="cursor-pointer text-sm font-medium text-brand-800">Enter the real spacing between neighbouring drums</summary>
+            <div className="mt-2 grid grid-cols-2 gap-2">
+              {present.map((n) => {
+                const key = neighbourKey(n.a, n.b);
+                return (
+                  <label key={key} className="space-y-1 text-sm">
+                    <span className="block">
+                      {SOURCES[n.a].label} ↔ {SOURCES[n.b].label} (cm)
+                    </span>
+                    <input
+                      inputMode="decimal"
+                      className={fieldClasses(false)}
+                      placeholder={`${n.typicalSpacingCm} (typical)`}
+                      value={spacings[key] ?? ''}
+                      onChange={(e) => setSpacings((s) => ({ ...s, [key]: e.target.value }))}
+                    />
+                  </label>
+                );
+              })}
+            </div>
+          </details>
+        ) : null}
         {failing.length > 0 ? (
           <ul className="space-y-2" aria-label="3:1 warnings">
             {failing.map((c) => (

@@ -1,9 +1,9 @@
 import { useId } from 'react';
 import type { RoomAcousticsView } from '@shared/schemas/rooms';
 
-const W = 560;
-const H = 200;
-const M = { top: 20, right: 20, bottom: 40, left: 70 };
+const W = 420;
+const H = 190;
+const M = { top: 24, right: 14, bottom: 42, left: 60 };
 const AXES = ['length', 'width', 'height'] as const;
 const TICKS_HZ = [20, 30, 50, 100, 200, 300, 500, 1000];
 const FLAG = '#b42318'; // danger-700
@@ -36,24 +36,24 @@ export function ModesChart({ acoustics }: { acoustics: RoomAcousticsView }) {
         {TICKS_HZ.filter((t) => t >= bottom && t <= top).map((t) => (
           <g key={t}>
             <line x1={x(t)} x2={x(t)} y1={M.top} y2={H - M.bottom} stroke="#e2d9cc" />
-            <text x={x(t)} y={H - M.bottom + 16} textAnchor="middle" fontSize="12" fill="#1f1b16">
+            <text x={x(t)} y={H - M.bottom + 16} textAnchor="middle" fontSize="13" fill="#1f1b16">
               {t >= 1000 ? `${t / 1000}k` : t}
             </text>
           </g>
         ))}
-        <text x={M.left + plotW / 2} y={H - 4} textAnchor="middle" fontSize="12" fill="#1f1b16">
+        <text x={M.left + plotW / 2} y={H - 4} textAnchor="middle" fontSize="13" fill="#1f1b16">
           Frequency (Hz, log scale)
         </text>
         {AXES.map((a) => (
           <g key={a}>
             <line x1={M.left} x2={W - M.right} y1={rowY(a)} y2={rowY(a)} stroke="#a8998a" />
-            <text x={M.left - 8} y={rowY(a) + 4} textAnchor="end" fontSize="12" fill="#1f1b16">
+            <text x={M.left - 8} y={rowY(a) + 4} textAnchor="end" fontSize="13" fill="#1f1b16">
               {a}
             </text>
           </g>
         ))}
         <line x1={x(schroederHz)} x2={x(schroederHz)} y1={M.top - 8} y2={H - M.bottom} stroke="#1f1b16" strokeDasharray="5 4" />
-        <text x={x(schroederHz) + 4} y={M.top - 8} fontSize="11" fill="#1f1b16">
+        <text x={x(schroederHz) + (x(schroederHz) > W * 0.65 ? -4 : 4)} y={M.top - 10} textAnchor={x(schroederHz) > W * 0.65 ? 'end' : 'start'} fontSize="12" fill="#1f1b16">
           Schroeder {Math.round(schroederHz)} Hz
         </text>
         {modes.map((m) => {

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { Controller, useFieldArray, useForm, type FieldErrors, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { SURFACE_IDS, SURFACE_LABELS } from '@shared/acoustics';
+import { computeAcoustics, READING_LABELS, SURFACE_IDS, SURFACE_LABELS } from '@shared/acoustics';
 import { SUPPORTED_CURRENCIES } from '@shared/money';
-import { roomInputSchema, type RoomInput } from '@shared/schemas/rooms';
+import { roomInputSchema, toRoomGeometry, type RoomInput } from '@shared/schemas/rooms';
 import { Alert, Button, Card, SelectField, TextField } from '@/components/ui';
 import { fieldClasses } from '@/components/ui/text-field';
 import { timeZoneOptions } from '@/features/auth/components/time-zones';
@@ -46,6 +46,18 @@ function errorAt(errors: FieldErrors<RoomInput>, path: string): string | undefin
   let node: unknown = errors;
   for (const key of path.split('.')) node = (node as Record<string, unknown> | undefined)?.[key];
   return (node as { message?: string } | undefined)?.message;
+}
+
+/** A live first look while typing, from the same pure module the server uses; null until the geometry is valid. */
+function LiveEstimate({ values }: { values: RoomInput }) {
+  const parsed = roomInputSchema.safeParse(values);
+  if (!parsed.success) return <p className="text-sm text-ink-muted">The estimate appears once the size and surfaces are complete.</p>;
+  const a = computeAcoustics(toRoomGeometry(parsed.data));
+  return (
+    <p aria-live="polite" className="text-sm">
+      Estimate so far: mid-band RT60 {a.midBandRt60Sec.toFixed(2)} s ({a.recommended === 'eyring' ? 'Eyring' : 'Sabine'}), reads {READING_LABELS[a.reading]} for drums. The plots are on the room page after saving.
+    </p>
+  );
 }
 
 /** The engineer's room: details, rates, size and surfaces. The shared schema checks it here and on the server. */
@@ -186,6 +198,7 @@ export function RoomForm({ initial, submitLabel, onSubmit }: { initial: RoomInpu
         </Button>
       </Card>
 
+      <LiveEstimate values={watch()} />
       <Button type="submit" busy={formState.isSubmitting} busyLabel="Saving">
         {submitLabel}
       </Button>

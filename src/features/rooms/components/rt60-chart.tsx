@@ -1,9 +1,10 @@
 import { useId } from 'react';
 import type { RoomAcousticsView } from '@shared/schemas/rooms';
 
-const W = 560;
-const H = 280;
-const M = { top: 16, right: 16, bottom: 40, left: 52 };
+// A viewBox near the card's real width keeps the text readable on phones and on desktop alike.
+const W = 420;
+const H = 260;
+const M = { top: 16, right: 12, bottom: 42, left: 50 };
 const SABINE = '#0f766e'; // brand-700
 const EYRING = '#92520b'; // accent-700
 
@@ -46,7 +47,7 @@ export function Rt60Chart({ acoustics }: { acoustics: RoomAcousticsView }) {
         {ticks.map((t) => (
           <g key={t}>
             <line x1={M.left} x2={W - M.right} y1={y(t)} y2={y(t)} stroke="#e2d9cc" />
-            <text x={M.left - 8} y={y(t) + 4} textAnchor="end" fontSize="12" fill="#57504a">
+            <text x={M.left - 8} y={y(t) + 4} textAnchor="end" fontSize="13" fill="#57504a">
               {t.toFixed(axis.step < 1 ? 2 : 0).replace(/\.?0+$/, '') || '0'}
             </text>
           </g>
@@ -54,20 +55,20 @@ export function Rt60Chart({ acoustics }: { acoustics: RoomAcousticsView }) {
         {thresholds.map((t) => (
           <g key={t.reading}>
             <line x1={M.left} x2={W - M.right} y1={y(t.belowSec)} y2={y(t.belowSec)} stroke="#a8998a" strokeDasharray="2 4" />
-            <text x={W - M.right - 4} y={y(t.belowSec) - 4} textAnchor="end" fontSize="11" fill="#57504a">
+            <text x={M.left + 4} y={y(t.belowSec) - 4} fontSize="11" fill="#57504a">
               {t.belowSec} s
             </text>
           </g>
         ))}
-        <text x={14} y={M.top + plotH / 2} transform={`rotate(-90 14 ${M.top + plotH / 2})`} textAnchor="middle" fontSize="12" fill="#1f1b16">
+        <text x={14} y={M.top + plotH / 2} transform={`rotate(-90 14 ${M.top + plotH / 2})`} textAnchor="middle" fontSize="13" fill="#1f1b16">
           RT60 (seconds)
         </text>
         {bands.map((b, i) => (
-          <text key={b.hz} x={x(i)} y={H - M.bottom + 18} textAnchor="middle" fontSize="12" fill="#1f1b16">
+          <text key={b.hz} x={x(i)} y={H - M.bottom + 18} textAnchor="middle" fontSize="13" fill="#1f1b16">
             {bandLabel(b.hz)}
           </text>
         ))}
-        <text x={M.left + plotW / 2} y={H - 4} textAnchor="middle" fontSize="12" fill="#1f1b16">
+        <text x={M.left + plotW / 2} y={H - 4} textAnchor="middle" fontSize="13" fill="#1f1b16">
           Octave band (Hz)
         </text>
         <path d={line('sabineSec')} fill="none" stroke={SABINE} strokeWidth={recommended === 'sabine' ? 3 : 2} />
