@@ -125,6 +125,8 @@ const optionalNumber = (schema: z.ZodNumber) =>
 export const openBriefsQuerySchema = z.strictObject({
   style: z.preprocess((v) => (v === '' ? undefined : v), z.enum(DRUM_STYLES, 'Pick a style from the list').optional()),
   budgetMin: optionalNumber(z.number({ error: 'Use a whole amount' }).int().min(0).max(MAX_AMOUNT_MINOR)),
+  // budgetMin is in this currency's minor units; minor units of two currencies cannot be compared.
+  currency: z.preprocess((v) => (v === '' ? undefined : v), currencySchema.optional()),
   deadlineBefore: z.preprocess((v) => (v === '' ? undefined : v), calendarDateSchema.optional()),
   tempoMin: optionalNumber(z.number({ error: 'Use a number' }).min(0).max(1000)),
   tempoMax: optionalNumber(z.number({ error: 'Use a number' }).min(0).max(1000)),

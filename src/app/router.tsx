@@ -36,6 +36,10 @@ const page = {
   booking: () => import('./routes/booking-detail'),
   delivery: () => import('./routes/delivery'),
   comingSoon: () => import('./routes/coming-soon'),
+  findDrummers: () => import('./routes/find-drummers'),
+  drummer: () => import('./routes/drummer-profile'),
+  engineer: () => import('./routes/engineer-profile'),
+  myProfile: () => import('./routes/my-profile'),
   rooms: () => import('./routes/rooms'),
   myRooms: () => import('./routes/my-rooms'),
   newRoom: () => import('./routes/new-room'),
@@ -47,13 +51,16 @@ const page = {
   messageThread: () => import('./routes/message-thread'),
   notifications: () => import('./routes/notifications'),
   notificationSettings: () => import('./routes/notification-settings'),
+  adminDisputes: () => import('./routes/admin-disputes'),
+  adminDispute: () => import('./routes/admin-dispute'),
+  adminBookings: () => import('./routes/admin-bookings'),
+  adminAccounts: () => import('./routes/admin-accounts'),
+  adminLedger: () => import('./routes/admin-ledger'),
+  adminAudit: () => import('./routes/admin-audit'),
 };
 
 /** Route stubs: navigation targets whose features later issues build. Each renders the one coming-soon page. */
 export const COMING_SOON: Array<{ path: string; title: string; description: string; signedIn: boolean }> = [
-  { path: paths.findDrummers.path, title: 'Find drummers', description: 'Search session drummers by style, rate and turnaround.', signedIn: false },
-  { path: paths.myProfile.path, title: 'My profile', description: 'What songwriters see about you: styles, kit, rates, reel and rooms.', signedIn: true },
-  { path: paths.adminDesk.path, title: 'Admin desk', description: 'Disputes, accounts and the money ledger.', signedIn: true },
 ];
 
 function pathOf(request: Request): string {
@@ -68,6 +75,13 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
   const requireSignedIn = async ({ request }: LoaderFunctionArgs) => {
     const me = await loadMe();
     if (!me.user) throw redirect(paths.signIn.getHref(pathOf(request)));
+    return null;
+  };
+  // The admin desk is not shown to anyone else: the same "not found" as for a page that does not exist.
+  const requireAdmin = async (args: LoaderFunctionArgs) => {
+    await requireSignedIn(args);
+    const me = await loadMe();
+    if (!me.user?.roles.includes('admin')) throw new Response('Not found', { status: 404, statusText: 'Not Found' });
     return null;
   };
   // Detail pages start their request while the page's code loads; a failed request is shown by the page itself.
@@ -138,6 +152,16 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.editRoom.path, lazy: page.editRoom, loader: prefetching((p) => queryClient.prefetchQuery(roomQueryOptions(p.roomId ?? ''))) },
             { path: paths.newMicPackage.path, lazy: page.newMicPackage, loader: prefetching((p) => queryClient.prefetchQuery(roomQueryOptions(p.roomId ?? ''))) },
             { path: paths.editMicPackage.path, lazy: page.editMicPackage, loader: requireSignedIn },
+            { path: paths.adminDesk.path, lazy: page.adminDisputes, loader: requireAdmin },
+            { path: paths.adminDispute.path, lazy: page.adminDispute, loader: requireAdmin },
+            { path: paths.adminBookings.path, lazy: page.adminBookings, loader: requireAdmin },
+            { path: paths.adminAccounts.path, lazy: page.adminAccounts, loader: requireAdmin },
+            { path: paths.adminLedger.path, lazy: page.adminLedger, loader: requireAdmin },
+            { path: paths.adminAudit.path, lazy: page.adminAudit, loader: requireAdmin },
+            { path: paths.findDrummers.path, lazy: page.findDrummers },
+            { path: paths.drummer.path, lazy: page.drummer },
+            { path: paths.engineer.path, lazy: page.engineer },
+            { path: paths.myProfile.path, lazy: page.myProfile, loader: requireSignedIn },
             ...comingSoonRoutes,
             { path: '*', lazy: page.notFound },
           ],

@@ -202,8 +202,17 @@ describe('open briefs for drummers', () => {
     expect(ids(await drummer.get('/api/briefs/open?style=punk&tempoMax=80'))).toEqual([slow]);
   });
 
+  it('compares the budget filter only with briefs priced in the same currency', async () => {
+    const s = (await signUp(app, { email: 'yen-filter@example.test', roles: ['songwriter'] })).client;
+    const yen = await publishedBrief(s, { style: 'funk', currency: 'JPY', budgetMinMinor: 30000, budgetMaxMinor: 60000 });
+    const inUsd = ids(await drummer.get('/api/briefs/open?budgetMin=200000&currency=USD'));
+    expect(inUsd).toEqual([rich]);
+    const inYen = ids(await drummer.get('/api/briefs/open?budgetMin=50000&currency=jpy'));
+    expect(inYen).toEqual([yen]);
+  });
+
   it('answers 400, not 500, to bad filters', async () => {
-    for (const q of ['page=0', 'style=polka', 'budgetMin=abc', 'deadlineBefore=tomorrow', 'tempoMin=x', 'unknown=1']) {
+    for (const q of ['page=0', 'style=polka', 'budgetMin=abc', 'currency=XYZ', 'deadlineBefore=tomorrow', 'tempoMin=x', 'unknown=1']) {
       expect((await drummer.get(`/api/briefs/open?${q}`)).status).toBe(400);
     }
   });

@@ -1,8 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readdirSync, existsSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { signUp, startTestApp, type ApiClient, type TestApp } from './helpers/test-app';
 import { synthReelWav } from '../../server/features/reels/reel-synth';
+import { REEL_PEAK_POINTS } from '../../server/features/reels/reel-peaks';
 import { REEL_MAX_BYTES, REEL_MAX_TRACKS } from '@shared/schemas/reels';
 
 let app: TestApp;
@@ -60,6 +63,18 @@ function fakeMp3(): Buffer {
   return Buffer.concat([frame, frame, frame, frame]);
 }
 
+/** A real MP3 encoded by Debian's ffmpeg: a 440 Hz sine of the given length. */
+function realMp3(seconds: number): Buffer {
+  const dir = mkdtempSync(join(tmpdir(), 'kitlane-reel-mp3-'));
+  try {
+    const path = join(dir, 'take.mp3');
+    execFileSync('ffmpeg', ['-hide_banner', '-loglevel', 'error', '-f', 'lavfi', '-i', `sine=frequency=440:duration=${seconds}:sample_rate=44100`, '-c:a', 'libmp3lame', '-b:a', '128k', path]);
+    return readFileSync(path);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
 const wav = synthReelWav({ seconds: 8, tempo: 120, seed: 7 });
 
 async function drummer(email: string, published = true) {
@@ -86,12 +101,28 @@ describe('uploading reel tracks', () => {
     expect(page.body.drummer.reelTracks.map((t: { id: string }) => t.id)).toEqual([res.body.track.id]);
   });
 
-  it('takes an MP3 by its content and keeps it without a waveform', async () => {
+  it('takes an MP3 by its content and draws its waveform with the same decoder as guide tracks', async () => {
     const { client } = await drummer('r2@example.test');
-    const res = await upload(client, { bytes: fakeMp3(), name: 'take.mp3', type: 'audio/mpeg' }, { title: 'Mp3 take' });
+    const res = await upload(client, { bytes: realMp3(3), name: 'take.bin', type: 'application/octet-stream' }, { title: 'Mp3 take' });
     expect(res.status).toBe(201);
-    expect(res.body.track).toMatchObject({ mime: 'audio/mpeg', hasPeaks: false, durationSec: null, style: '', tempoBpm: null });
-    expect((await app.client().get(`/api/reel-tracks/${res.body.track.id}/peaks`)).status).toBe(404);
+    expect(res.body.track).toMatchObject({ mime: 'audio/mpeg', hasPeaks: true, style: '', tempoBpm: null });
+    // An MP3 encoder pads up to one frame (1152 samples ≈ 26 ms at 44.1 kHz).
+    expect(res.body.track.durationSec).toBeGreaterThan(2.95);
+    expect(res.body.track.durationSec).toBeLessThan(3.1);
+    const peaks = await app.client().get(`/api/reel-tracks/${res.body.track.id}/peaks`);
+    expect(peaks.status).toBe(200);
+    expect(peaks.body.levels).toHaveLength(1);
+    expect(peaks.body.levels[0].data.length).toBeLessThanOrEqual(REEL_PEAK_POINTS);
+    // ffmpeg's sine source has amplitude 1/8 (0.125); MP3 coding moves it by a few per cent.
+    expect(Math.max(...peaks.body.levels[0].data)).toBeCloseTo(0.125, 1);
+  });
+
+  it('keeps frame headers with no sound as a silent waveform rather than failing', async () => {
+    const { client } = await drummer('r2b@example.test');
+    const res = await upload(client, { bytes: fakeMp3(), name: 'take.mp3', type: 'audio/mpeg' }, { title: 'Empty frames' });
+    expect(res.status).toBe(201);
+    const peaks = await app.client().get(`/api/reel-tracks/${res.body.track.id}/peaks`);
+    expect(Math.max(...peaks.body.levels[0].data)).toBe(0);
   });
 
   it('refuses a renamed text file with a clear message and stores nothing', async () => {

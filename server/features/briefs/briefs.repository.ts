@@ -94,12 +94,13 @@ export function createBriefsRepository(db: Db) {
 
     /**
      * Open briefs for one drummer: the ones they were invited to first, then the newest; never their own.
-     * budgetMin keeps briefs whose top of the range reaches it; deadlineBefore is inclusive.
+     * budgetMin keeps briefs whose top of the range reaches it (in `currency` when given); deadlineBefore is inclusive.
      */
     listOpen(drummerId: string, q: OpenBriefsQuery, limit: number, offset: number): { rows: OpenBriefRow[]; total: number } {
       const where: SQL[] = [eq(briefs.status, 'open'), sql`${briefs.songwriterId} <> ${drummerId}`];
       if (q.style) where.push(eq(briefs.style, q.style));
       if (q.budgetMin !== undefined) where.push(gte(briefs.budgetMaxMinor, q.budgetMin));
+      if (q.currency) where.push(eq(briefs.currency, q.currency));
       if (q.deadlineBefore) where.push(lte(briefs.deadline, q.deadlineBefore));
       if (q.tempoMin !== undefined) where.push(gte(briefs.tempoBpm, q.tempoMin));
       if (q.tempoMax !== undefined) where.push(lte(briefs.tempoBpm, q.tempoMax));

@@ -6,7 +6,7 @@ import { isWavError } from '../../audio/wav-errors';
 import { AppError } from '../../http/app-error';
 import type { Storage } from '../../storage/storage';
 import type { ReceivedFile } from '../../uploads/receive';
-import { mp3Peaks, Mp3DecodeError } from './mp3-peaks';
+import { mp3Peaks, Mp3DecodeError } from '../../audio/mp3-peaks';
 
 export type StoredGuide = { audioKey: string; peaksKey: string; mime: string; name: string; durationSec: number };
 

@@ -114,7 +114,9 @@ export const disputesSeedStep: SeedStep = {
     const reviews = createReviewsService(ctx);
     const admin = demoUser(ctx, ids.admin);
 
-    // Open: the songwriter says the stems have problems; the admin desk shows it at the head of the queue.
+    // Open: the songwriter says the stems have problems; the admin desk shows it at the head of the queue. The
+    // drummer has a payout account, so whatever the admin decides is transferred at once.
+    await onboard(ctx, demoUser(ctx, ids.kofi));
     const open = hire(ctx, state, { owner: 'mara', drummer: 'kofi', songTitle: 'Lamplight Verse', feeMinor: 22_000, style: 'folk' });
     await fund(ctx, open.owner, open.bookingId);
     deliver(ctx, open.bookingId);

@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { computeWavPeaks, samplesPerPixelFor } from './reel-peaks';
+import { computeWavPeaks, fitPeaks, samplesPerPixelFor } from './reel-peaks';
 import { encodeWav16Mono, synthReelSamples } from './reel-synth';
 
 const dir = mkdtempSync(join(tmpdir(), 'kitlane-reel-peaks-'));
@@ -37,6 +37,15 @@ describe('reel waveform peaks', () => {
     const peaks = await computeWavPeaks(path);
     expect(Math.max(...peaks.levels[0].data)).toBeCloseTo(0.7, 2);
     expect(peaks.durationSec).toBeCloseTo(8, 5);
+  });
+
+  it('narrows MP3 peaks to the point budget, keeping the loudest of each merged run', () => {
+    const data = Array.from({ length: 10 }, (_, i) => i / 10);
+    const fitted = fitPeaks({ durationSec: 1, sampleRate: 44100, levels: [{ samplesPerPixel: 256, data }, { samplesPerPixel: 4096, data: [0.9] }] }, 4);
+    expect(fitted.levels).toHaveLength(1);
+    expect(fitted.levels[0].samplesPerPixel).toBe(256 * 3);
+    expect(fitted.levels[0].data).toEqual([0.2, 0.5, 0.8, 0.9]);
+    expect(fitPeaks({ durationSec: 1, sampleRate: 44100, levels: [{ samplesPerPixel: 256, data: [0.1, 0.3] }] }, 4).levels[0]).toEqual({ samplesPerPixel: 256, data: [0.1, 0.3] });
   });
 
   it('refuses a file that is not a WAV', async () => {

@@ -44,3 +44,19 @@ function accumulate(channel: Float32Array, n: number, firstFrame: number, spp: n
     if (v > into[bucket]) into[bucket] = v;
   }
 }
+
+/**
+ * Narrows peaks made elsewhere (the MP3 decoder's fine level) to at most maxPoints, keeping the loudest
+ * value of each merged run, so an MP3 reel draws like a WAV one and its peaks file stays small.
+ */
+export function fitPeaks(peaks: WaveformPeaks, maxPoints = REEL_PEAK_POINTS): WaveformPeaks {
+  const fine = peaks.levels[0];
+  const factor = Math.max(1, Math.ceil(fine.data.length / maxPoints));
+  const data: number[] = [];
+  for (let i = 0; i < fine.data.length; i += factor) {
+    let max = 0;
+    for (let j = i; j < Math.min(fine.data.length, i + factor); j++) if (fine.data[j] > max) max = fine.data[j];
+    data.push(max);
+  }
+  return { durationSec: peaks.durationSec, sampleRate: peaks.sampleRate, levels: [{ samplesPerPixel: fine.samplesPerPixel * factor, data }] };
+}

@@ -14,7 +14,8 @@ import type { WaveformPeaks } from '@shared/schemas/delivery-check';
 import { toReelTrackSummary, type ReelTrackRow, type ReelsRepository } from './reels.repository';
 import type { ProfilesRepository } from '../profiles/profiles.repository';
 import { isDrummerListed } from '../profiles/profiles.service';
-import { computeWavPeaks } from './reel-peaks';
+import { mp3Peaks, Mp3DecodeError } from '../../audio/mp3-peaks';
+import { computeWavPeaks, fitPeaks } from './reel-peaks';
 
 /** An audio file already on local disk (multer's temp file, or one the seed wrote); the service owns it now. */
 export type IncomingAudio = { tmpPath: string; kind: 'wav' | 'mp3'; mime: string; size: number };
@@ -31,14 +32,12 @@ export function createReelsService(deps: { db: Db; storage: Storage; repo: Reels
     if (!owner || owner.disabledAt || !profile || !isDrummerListed(profile)) throw notFound('That reel track');
   }
 
-  async function peaksOf(file: IncomingAudio): Promise<WaveformPeaks | null> {
-    // MP3 needs a decoder we do not ship yet (see the report); its tracks play without a waveform.
-    if (file.kind !== 'wav') return null;
+  async function peaksOf(file: IncomingAudio): Promise<WaveformPeaks> {
     try {
-      return await computeWavPeaks(file.tmpPath);
+      return file.kind === 'wav' ? await computeWavPeaks(file.tmpPath) : fitPeaks(await mp3Peaks(file.tmpPath));
     } catch (error) {
-      if (!isWavError(error)) throw error;
-      throw new AppError('unreadable_audio', `That WAV file cannot be read: ${error.message}`, 422, { file: 'Export the track again as WAV or MP3' });
+      if (!isWavError(error) && !(error instanceof Mp3DecodeError)) throw error;
+      throw new AppError('unreadable_audio', `That ${file.kind.toUpperCase()} file cannot be read: ${error.message}`, 422, { file: 'Export the track again as WAV or MP3' });
     }
   }
 

@@ -19,7 +19,7 @@ const idOf = (req: Request) => String(req.params.id);
 
 /** Photos get a new id on every upload, so they can be cached; a room can be removed, so only briefly in shared caches. */
 function sendPhoto(res: Response, stream: Readable): void {
-  res.set({ 'Content-Type': 'image/webp', 'X-Content-Type-Options': 'nosniff', 'Cache-Control': 'public, max-age=3600' });
+  res.set({ 'Content-Type': 'image/webp', 'Content-Disposition': 'inline', 'X-Content-Type-Options': 'nosniff', 'Cache-Control': 'public, max-age=3600' });
   res.on('close', () => stream.destroy());
   stream.on('error', () => {
     if (!res.headersSent) res.status(404).json({ error: { code: 'not_found', message: 'That photo was not found' } });

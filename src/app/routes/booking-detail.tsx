@@ -8,8 +8,11 @@ import { BookingTerms } from '@/features/bookings/components/booking-terms';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { EscrowPanel } from '@/features/payments/components/escrow-panel';
+import { BookingDisputes } from '@/features/disputes/components/booking-disputes';
+import { BookingReviews } from '@/features/reviews/components/booking-reviews';
 import { DeliveriesPanel } from '@/features/deliveries/components/deliveries-panel';
 import { BookingRoomPanels } from '@/features/session-prep/components/booking-room-panels';
+import { OpenThreadButton } from '@/features/messages/components/open-thread-button';
 
 export function Component() {
   const { bookingId = '' } = useParams();
@@ -35,6 +38,7 @@ export function Component() {
                   </span>
                 </span>
               }
+              actions={b.myRole !== 'admin' ? <OpenThreadButton target={{ bookingId: b.id }}>Message about this booking</OpenThreadButton> : undefined}
             />
             {b.status === 'awaiting_payment' ? (
               <Alert tone="info" className="mb-6">
@@ -44,6 +48,10 @@ export function Component() {
               </Alert>
             ) : null}
             <EscrowPanel bookingId={b.id} />
+            <div className="mb-6 space-y-6 empty:hidden">
+              <BookingDisputes booking={b} />
+              <BookingReviews booking={b} />
+            </div>
             <DeliveriesPanel bookingId={b.id} />
             <BookingTerms booking={b} />
             <BookingRoomPanels bookingId={b.id} />

@@ -14,6 +14,7 @@ import { QueryState } from '@/features/briefs/components/query-state';
 import { styleLabel } from '@/features/briefs/components/format';
 import { useCreateQuote } from '@/features/quotes/api/create-quote';
 import { QuoteForm } from '@/features/quotes/components/quote-form';
+import { OpenThreadButton } from '@/features/messages/components/open-thread-button';
 import { useDocumentTitle } from '@/lib/use-document-title';
 
 function OwnerPanel({ brief }: { brief: BriefView }) {
@@ -66,6 +67,16 @@ function OwnerPanel({ brief }: { brief: BriefView }) {
   );
 }
 
+/** A drummer's question before (or after) quoting goes to the songwriter's conversation about this brief. */
+function AskSongwriter({ brief }: { brief: BriefView }) {
+  if (brief.status !== 'open' && brief.status !== 'hired') return null;
+  return (
+    <div className="mt-4 border-t border-line pt-4">
+      <OpenThreadButton target={{ briefId: brief.id }}>Message {brief.songwriterName}</OpenThreadButton>
+    </div>
+  );
+}
+
 function DrummerPanel({ brief }: { brief: BriefView }) {
   const canQuote = useCan('create:quote:own');
   const create = useCreateQuote();
@@ -80,13 +91,18 @@ function DrummerPanel({ brief }: { brief: BriefView }) {
             See your quote
           </Link>
         </p>
+        <AskSongwriter brief={brief} />
       </Card>
     );
   }
   if (brief.status !== 'open' || !canQuote) return null;
   return (
     <Card>
-      <h2 className="mb-4 text-xl font-bold">Send a quote</h2>
+      <h2 className="text-xl font-bold">Send a quote</h2>
+      <div className="mt-2 mb-5 space-y-2 border-b border-line pb-5">
+        <p className="text-sm text-ink-muted">Something unclear in the brief? Ask before you quote.</p>
+        <OpenThreadButton target={{ briefId: brief.id }}>Message {brief.songwriterName}</OpenThreadButton>
+      </div>
       <QuoteForm
         brief={brief}
         busy={create.isPending}

@@ -12,6 +12,7 @@ import { LegalCaution, LineItems, RightsText } from '@/features/quotes/component
 import { dateText } from '@/features/briefs/components/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { QuotePackageSummary } from '@/features/mic-packages/components/quote-package-summary';
+import { OpenThreadButton } from '@/features/messages/components/open-thread-button';
 
 function QuoteColumn({ quote, briefOpen }: { quote: QuoteComparison; briefOpen: boolean }) {
   const accept = useAcceptQuote();
@@ -59,6 +60,9 @@ function QuoteColumn({ quote, briefOpen }: { quote: QuoteComparison; briefOpen: 
         </div>
       ) : null}
       {quote.message ? <blockquote className="border-l-4 border-line-strong pl-3 text-sm italic">{quote.message}</blockquote> : null}
+      <OpenThreadButton target={{ briefId: quote.briefId, drummerId: quote.drummerId }} variant="ghost">
+        Message {quote.drummerName}
+      </OpenThreadButton>
       {quote.declineReason ? <p className="text-sm text-ink-muted">Declined: {quote.declineReason}</p> : null}
       {quote.blockedReason && quote.status === 'sent' ? <Alert tone="warning">{quote.blockedReason}</Alert> : null}
       {accept.error ? <Alert tone="error">{accept.error.message}</Alert> : null}

@@ -1,15 +1,18 @@
-import { useMemo, type FormEvent } from 'react';
+import { useMemo, useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { openBriefsQuerySchema, type OpenBriefsQuery } from '@shared/schemas/briefs';
 import { DRUM_STYLES } from '@shared/schemas/profiles';
+import { SUPPORTED_CURRENCIES } from '@shared/money';
 import { paths } from '@/config/paths';
 import { Alert, Badge, Button, Card, EmptyState, PageHeader, SelectField, TextField } from '@/components/ui';
 import { openBriefsSearch, useOpenBriefs } from '@/features/briefs/api/get-open-briefs';
+import { budgetMinFromText, budgetMinText } from '@/features/briefs/components/budget-filter';
 import { budgetText, dateText, styleLabel, tempoText } from '@/features/briefs/components/format';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { useDocumentTitle } from '@/lib/use-document-title';
 
-const FILTER_KEYS = ['style', 'budgetMin', 'deadlineBefore', 'tempoMin', 'tempoMax'] as const;
+const FILTER_KEYS = ['style', 'budgetMin', 'currency', 'deadlineBefore', 'tempoMin', 'tempoMax'] as const;
+const CURRENCY_OPTIONS = SUPPORTED_CURRENCIES.map((c) => ({ value: c, label: c }));
 
 /** The URL holds the filters, so a filtered list can be reloaded and shared; a broken URL falls back to no filters. */
 function filtersFrom(params: URLSearchParams): { filters: OpenBriefsQuery; invalid: boolean } {
@@ -24,14 +27,29 @@ export function Component() {
   const { filters, invalid } = useMemo(() => filtersFrom(params), [params]);
   const list = useOpenBriefs(filters);
   const page = filters.page ?? 1;
+  const [budgetError, setBudgetError] = useState<string | undefined>();
+  const filterCurrency = filters.currency ?? 'USD';
 
   const onSubmit = (e: FormEvent<HTMLFormElement>) => {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
     const next = new URLSearchParams();
     for (const key of FILTER_KEYS) {
+      if (key === 'budgetMin' || key === 'currency') continue;
       const value = String(form.get(key) ?? '').trim();
       if (value) next.set(key, value);
+    }
+    // People type the budget in major units; the address and the API carry minor units with their currency.
+    const currency = String(form.get('currency') ?? 'USD');
+    const budget = budgetMinFromText(String(form.get('budgetText') ?? ''), currency);
+    if (!budget.ok) {
+      setBudgetError(budget.message);
+      return;
+    }
+    setBudgetError(undefined);
+    if (budget.budgetMin !== undefined) {
+      next.set('budgetMin', String(budget.budgetMin));
+      next.set('currency', currency);
     }
     setParams(next);
   };
@@ -45,7 +63,13 @@ export function Component() {
         <Card>
           <form onSubmit={onSubmit} className="space-y-4" aria-label="Filter open briefs" key={params.toString()}>
             <SelectField label="Style" name="style" defaultValue={filters.style ?? ''} options={[{ value: '', label: 'Any style' }, ...DRUM_STYLES.map((s) => ({ value: s, label: styleLabel(s) }))]} />
-            <TextField label="Budget reaches at least (minor units)" name="budgetMin" inputMode="numeric" defaultValue={filters.budgetMin ?? ''} hint="In cents, pence etc. of the brief's currency" />
+            <div className="space-y-1.5">
+              <div className="grid grid-cols-[1fr_6.5rem] items-start gap-3">
+                <TextField label="Budget reaches at least" name="budgetText" inputMode="decimal" defaultValue={budgetMinText(filters.budgetMin, filterCurrency)} error={budgetError} />
+                <SelectField label="Currency" name="currency" defaultValue={filterCurrency} options={CURRENCY_OPTIONS} />
+              </div>
+              <p className="text-sm text-ink-muted">In whole units, e.g. 250 or 250.50. Only briefs priced in that currency are shown.</p>
+            </div>
             <TextField label="Deadline on or before" name="deadlineBefore" type="date" defaultValue={filters.deadlineBefore ?? ''} />
             <div className="grid grid-cols-2 gap-3">
               <TextField label="Tempo from" name="tempoMin" inputMode="numeric" defaultValue={filters.tempoMin ?? ''} />

@@ -26,7 +26,6 @@ export function DataTable<T>({
 }: {
   data: T[];
   // Columns of mixed value types: the cell renderers type each one.
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<T, any>[];
   caption: string;
   pageSize?: number;
@@ -34,8 +33,6 @@ export function DataTable<T>({
   rowTestId?: string;
 }) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
-  // React Compiler skips this component: the table instance is mutable by design (TanStack Table docs).
-  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data,
     columns,

@@ -74,12 +74,8 @@ export function DisputeCase({ file }: { file: DisputeCaseView }) {
             {booking.engineer ? ` · engineer ${booking.engineer.displayName}` : ''}
           </p>
         </Card>
-        <section aria-labelledby="case-terms" className="space-y-2">
-          <h2 id="case-terms" className="text-xl font-bold">
-            Agreed terms
-          </h2>
-          <BookingTerms booking={booking} />
-        </section>
+        {/* The frozen terms carry their own "Agreed terms" heading. */}
+        <BookingTerms booking={booking} />
         <Card className="space-y-3">
           <h2 className="text-xl font-bold">Messages</h2>
           <Messages file={file} />

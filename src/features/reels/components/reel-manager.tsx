@@ -49,7 +49,7 @@ function ReelUpload({ full }: { full: boolean }) {
           Audio file
         </label>
         <p id="reel-file-hint" className="text-sm text-ink-muted">
-          WAV or MP3, up to {REEL_MAX_BYTES / MB} MB. WAV tracks get a waveform.
+          WAV or MP3, up to {REEL_MAX_BYTES / MB} MB. Each track gets a waveform.
         </p>
         <input ref={fileRef} id="reel-file" name="file" type="file" accept={REEL_ACCEPT} aria-describedby="reel-file-hint" aria-invalid={errors.file ? true : undefined} className={fieldClasses(Boolean(errors.file))} />
         <FieldError message={errors.file} />

@@ -9,8 +9,8 @@ type Player = { playPause(): Promise<void> | void; destroy(): void };
 /**
  * One reel track: the waveform comes from the peaks the server computed at upload, the audio streams from
  * the range URL through a media element, so the browser never decodes the file. wavesurfer.js is imported
- * only when a player mounts, keeping it out of the home page's bundle. Tracks without peaks (MP3 for now)
- * get the browser's own audio controls.
+ * only when a player mounts, keeping it out of the home page's bundle. Tracks without peaks (stored before MP3
+ * peaks were computed) get the browser’s own audio controls.
  */
 export function ReelPlayer({ track }: { track: ReelTrackSummary }) {
   const peaks = useReelPeaks(track.id, track.hasPeaks);

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Controller, useFieldArray, useForm, type FieldErrors, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { computeAcoustics, READING_LABELS, SURFACE_IDS, SURFACE_LABELS } from '@shared/acoustics';
+import { computeAcoustics, READING_LABELS, SURFACE_IDS, SURFACE_LABELS, validateRoomGeometry } from '@shared/acoustics';
 import { SUPPORTED_CURRENCIES } from '@shared/money';
 import { roomInputSchema, toRoomGeometry, type RoomInput } from '@shared/schemas/rooms';
 import { Alert, Button, Card, SelectField, TextField } from '@/components/ui';
@@ -48,11 +48,11 @@ function errorAt(errors: FieldErrors<RoomInput>, path: string): string | undefin
   return (node as { message?: string } | undefined)?.message;
 }
 
-/** A live first look while typing, from the same pure module the server uses; null until the geometry is valid. */
+/** A live first look while typing, from the same pure module the server uses; shown once the geometry is usable. */
 function LiveEstimate({ values }: { values: RoomInput }) {
-  const parsed = roomInputSchema.safeParse(values);
-  if (!parsed.success) return <p className="text-sm text-ink-muted">The estimate appears once the size and surfaces are complete.</p>;
-  const a = computeAcoustics(toRoomGeometry(parsed.data));
+  const geometry = toRoomGeometry(values);
+  if (validateRoomGeometry(geometry).length > 0) return <p className="text-sm text-ink-muted">The estimate appears once the size and surfaces are complete.</p>;
+  const a = computeAcoustics(geometry);
   return (
     <p aria-live="polite" className="text-sm">
       Estimate so far: mid-band RT60 {a.midBandRt60Sec.toFixed(2)} s ({a.recommended === 'eyring' ? 'Eyring' : 'Sabine'}), reads {READING_LABELS[a.reading]} for drums. The plots are on the room page after saving.

@@ -1,6 +1,6 @@
 import { createReadStream } from 'node:fs';
 import { MPEGDecoder } from 'mpg123-decoder';
-import { buildPeaks, PEAK_LEVELS } from '../../audio/analyze-stem';
+import { buildPeaks, PEAK_LEVELS } from './analyze-stem';
 import type { WaveformPeaks } from '@shared/schemas/delivery-check';
 
 export class Mp3DecodeError extends Error {}
