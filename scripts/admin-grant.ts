@@ -5,6 +5,7 @@ import { parseEnv } from '../server/env';
 import { openDb } from '../server/db/client';
 import { applyMigrations } from '../server/db/migrate';
 import { users } from '../server/db/schema';
+import { recordAudit } from '../server/features/audit/audit.service';
 
 const email = process.argv[2]?.trim().toLowerCase();
 if (!email) {
@@ -22,7 +23,11 @@ if (!user) {
 if (user.roles.includes('admin')) {
   console.log(`${email} is already an admin.`);
 } else {
-  db.update(users).set({ roles: [...user.roles, 'admin'] }).where(eq(users.id, user.id)).run();
+  db.transaction((tx) => {
+    tx.update(users).set({ roles: [...user.roles, 'admin'] }).where(eq(users.id, user.id)).run();
+    // The command line has no signed-in actor; the audit log shows it as such.
+    recordAudit(tx, { actorId: null, action: 'grant', targetType: 'user', targetId: user.id, note: 'npm run admin:grant' });
+  });
   console.log(`${email} is now an admin. They get the admin desk at their next page load.`);
 }
 db.$client.close();

@@ -56,13 +56,17 @@ export type AppContext = {
 
 export type KitlaneApp = { app: Express; ctx: AppContext };
 
-function securityHeaders(dev: boolean): RequestHandler {
+function securityHeaders(dev: boolean, realStripe: boolean): RequestHandler {
+  // Stripe.js can only come from Stripe's servers; it is allowed only when a real publishable key is set.
+  const stripeScript = realStripe ? ['https://js.stripe.com'] : [];
+  const stripeConnect = realStripe ? ['https://api.stripe.com'] : [];
   return helmet({
     contentSecurityPolicy: {
       directives: {
         // Vite's dev server injects an inline preamble for hot reload; production has no inline script.
-        scriptSrc: dev ? ["'self'", "'unsafe-inline'"] : ["'self'"],
-        connectSrc: dev ? ["'self'", 'ws:'] : ["'self'"],
+        scriptSrc: dev ? ["'self'", "'unsafe-inline'", ...stripeScript] : ["'self'", ...stripeScript],
+        connectSrc: dev ? ["'self'", 'ws:', ...stripeConnect] : ["'self'", ...stripeConnect],
+        frameSrc: realStripe ? ["'self'", 'https://js.stripe.com'] : ["'self'"],
         mediaSrc: ["'self'", 'blob:'],
         imgSrc: ["'self'", 'data:', 'blob:'],
         // Form posts go to the payment fake's hosted page on another local port.
@@ -91,7 +95,7 @@ export function createApp(deps: AppDeps): KitlaneApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
-  app.use(securityHeaders(Boolean(deps.devMiddleware)));
+  app.use(securityHeaders(Boolean(deps.devMiddleware), Boolean(deps.env.STRIPE_PUBLISHABLE_KEY)));
 
   const api = express.Router();
   api.get('/health', (_req, res) => {

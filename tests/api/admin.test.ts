@@ -160,3 +160,20 @@ describe('bookings search and the audit log', () => {
     expect(res.body.total).toBeGreaterThanOrEqual(res.body.items.length);
   });
 });
+
+describe('admin money actions outside a dispute', () => {
+  it('audits a direct admin release and refund', async () => {
+    const released = insertBooking(app.db, { songwriterId: songwriter.id, drummerId: drummer.id, songTitle: 'Direct Release' });
+    await fundBooking(app, songwriter, released);
+    const rel = await admin.client.post(`/api/bookings/${released}/release`, { reason: 'Admin decision after a call' });
+    expect(rel.status).toBe(200);
+    const refunded = insertBooking(app.db, { songwriterId: songwriter.id, drummerId: drummer.id, songTitle: 'Direct Refund' });
+    await fundBooking(app, songwriter, refunded);
+    const ref = await admin.client.post(`/api/bookings/${refunded}/refund`, { reason: 'Drummer fell ill' });
+    expect(ref.status).toBe(200);
+    const audit = await admin.client.get('/api/admin/audit?limit=20');
+    const rows = audit.body.items as { action: string; targetId: string; note: string }[];
+    expect(rows.find((r) => r.targetId === released)).toMatchObject({ action: 'release', note: 'Admin decision after a call' });
+    expect(rows.find((r) => r.targetId === refunded)).toMatchObject({ action: 'refund', note: 'Drummer fell ill' });
+  });
+});

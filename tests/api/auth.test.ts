@@ -156,3 +156,18 @@ describe('guards', () => {
     expect(res.headers.get('content-security-policy')).not.toMatch(/script-src[^;]*unsafe-inline/);
   });
 });
+
+describe('content security policy with a real payment key', () => {
+  it('allows Stripe.js only when a real publishable key is configured', async () => {
+    const withKey = await startTestApp({ env: { STRIPE_PUBLISHABLE_KEY: 'pk_test_example' } });
+    try {
+      const csp = (await withKey.client().get('/api/health')).headers.get('content-security-policy')!;
+      expect(csp).toMatch(/script-src 'self' https:\/\/js\.stripe\.com/);
+      expect(csp).toMatch(/frame-src 'self' https:\/\/js\.stripe\.com/);
+    } finally {
+      await withKey.close();
+    }
+    const csp = (await app.client().get('/api/health')).headers.get('content-security-policy')!;
+    expect(csp).not.toContain('stripe.com');
+  });
+});

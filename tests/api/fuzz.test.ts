@@ -128,3 +128,81 @@ describe('input fuzzing over every JSON route', () => {
     }
   }, 600_000);
 });
+
+// ---------------------------------------------------------------- the WAV reader
+
+describe('WAV reader under mutated and random bytes', () => {
+  const WAV_CODES = ['not-wav', 'truncated', 'unsupported', 'malformed', 'io'];
+  const PER_FILE_MS = 10_000;
+
+  /** Byte offsets of every chunk-size field in a RIFF file (after the 'RIFF' tag and each chunk id). */
+  function sizeFieldOffsets(buf: Buffer): number[] {
+    const out = [4];
+    for (let at = 12; at + 8 <= buf.length; ) {
+      out.push(at + 4);
+      const size = buf.readUInt32LE(at + 4);
+      at += 8 + size + (size % 2);
+    }
+    return out;
+  }
+
+  const mutation = fc.oneof(
+    fc.record({ kind: fc.constant('truncate' as const), at: fc.nat() }),
+    fc.record({ kind: fc.constant('size' as const), which: fc.nat(), value: fc.constantFrom(0xffffffff, 0xfffffffe, 0, 1, 0x7fffffff, 3) }),
+    fc.record({ kind: fc.constant('flip' as const), at: fc.nat(), byte: fc.integer({ min: 0, max: 255 }) }),
+    fc.record({ kind: fc.constant('junk' as const), at: fc.nat(), bytes: fc.uint8Array({ maxLength: 64 }) }),
+    fc.record({ kind: fc.constant('nested' as const), depth: fc.integer({ min: 1, max: 40 }) }),
+    fc.record({ kind: fc.constant('random' as const), bytes: fc.uint8Array({ maxLength: 4096 }) }),
+  );
+
+  it('answers each broken file with a clear error or a report, in bounded time and memory, and the pool keeps working', async () => {
+    const { mkdtempSync, rmSync, writeFileSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const { tmpdir } = await import('node:os');
+    const { createCheckPool } = await import('../../server/audio/pool');
+    const { buildWav, sine } = await import('../../server/audio/testing/synth-wav');
+    const dir = mkdtempSync(join(tmpdir(), 'kitlane-wav-fuzz-'));
+    const pool = createCheckPool({ maxThreads: 2 });
+    const valid = buildWav([sine({ sampleRate: 48_000, seconds: 0.5, freq: 440, amplitude: 0.5 })], { sampleRate: 48_000, bits: 24 });
+    const rssBefore = process.memoryUsage().rss;
+    let n = 0;
+    try {
+      await fc.assert(
+        fc.asyncProperty(mutation, async (m) => {
+          let buf = Buffer.from(valid);
+          if (m.kind === 'truncate') buf = buf.subarray(0, m.at % buf.length);
+          if (m.kind === 'size') {
+            const offsets = sizeFieldOffsets(valid);
+            buf.writeUInt32LE(m.value, offsets[m.which % offsets.length]);
+          }
+          if (m.kind === 'flip') buf[m.at % buf.length] = m.byte;
+          if (m.kind === 'junk') buf = Buffer.concat([buf.subarray(0, m.at % buf.length), Buffer.from(m.bytes), buf.subarray(m.at % buf.length)]);
+          if (m.kind === 'nested') {
+            // LIST chunks inside LIST chunks, each claiming to hold the rest of the file.
+            const nest = Buffer.concat(Array.from({ length: m.depth }, () => Buffer.from('LIST\xff\xff\xff\x7fINFO', 'latin1')));
+            buf = Buffer.concat([buf.subarray(0, 12), nest, buf.subarray(12)]);
+          }
+          if (m.kind === 'random') buf = Buffer.from(m.bytes);
+          const path = join(dir, `f${n++}.wav`);
+          writeFileSync(path, buf);
+          let timer: NodeJS.Timeout | undefined;
+          const timeout = new Promise<never>((_, reject) => {
+            timer = setTimeout(() => reject(new Error(`no answer in ${PER_FILE_MS} ms for ${m.kind}`)), PER_FILE_MS);
+          });
+          const result = await Promise.race([pool.run({ path, name: 'fuzz.wav', part: null }), timeout]).finally(() => clearTimeout(timer));
+          if (!result.ok) {
+            expect(WAV_CODES, `${m.kind}: ${result.code} ${result.reason}`).toContain(result.code);
+            expect(result.reason.length).toBeGreaterThan(5);
+          }
+        }),
+        { numRuns: 60 },
+      );
+      const after = await pool.run({ path: (writeFileSync(join(dir, 'ok.wav'), valid), join(dir, 'ok.wav')), name: 'ok.wav', part: null });
+      expect(after.ok).toBe(true);
+      expect(process.memoryUsage().rss - rssBefore).toBeLessThan(300 * 1024 * 1024);
+    } finally {
+      await pool.destroy();
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 300_000);
+});

@@ -65,7 +65,7 @@ describe('origin checks', () => {
     const refused: string[] = [];
     for (const route of mutating) {
       const path = fillPath(app.db, route.path).replace('{/:id}', '/x');
-      for (const headers of [{ origin: 'https://elsewhere.test' }, { 'sec-fetch-site': 'cross-site' }]) {
+      for (const headers of [{ origin: 'https://elsewhere.test' }, { 'sec-fetch-site': 'cross-site' }] as Record<string, string>[]) {
         const res = await admin.request(route.method, path, {}, headers);
         if (res.status === 403 && res.body?.error?.code === 'cross_origin') refused.push(routeKey(route));
         else expect.fail(`${routeKey(route)} with ${JSON.stringify(headers)} answered ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`);

@@ -22,8 +22,9 @@ const sessions: BrowserSession[] = [];
 
 beforeAll(async () => {
   stemDir = mkdtempSync(join(tmpdir(), 'kitlane-e2e-stems-'));
-  // 12 s of 24-bit 48 kHz each (~1.7 MB): long enough to pause an upload half-way on a throttled link.
-  const kit = renderKit({ sampleRate: 48_000, seconds: 12, tempo: 120, seed: 11 });
+  // 24 s of 24-bit 48 kHz each (~3.5 MB): long enough to pause an upload half-way on a throttled link, and
+  // longer than the part the review room decodes first, so the switch to the whole stems is exercised.
+  const kit = renderKit({ sampleRate: 48_000, seconds: 24, tempo: 120, seed: 11 });
   for (const name of NAMES) await writeWav(join(stemDir, name), [kit.find((s) => s.name === name)!.samples], { sampleRate: 48_000, bits: 24 });
   server = await startTestServer();
   browser = await launchChromium();
@@ -75,7 +76,7 @@ async function uploadAndSubmit(page: Page, version: number, opts: { interrupt: b
   await page.getByLabel('Add WAV stems').setInputFiles(NAMES.map((n) => join(stemDir, n)));
   await expect.poll(() => page.getByTestId('upload-row').count(), { timeout: 15_000 }).toBe(3);
   if (opts.interrupt) {
-    await expect.poll(() => percentOf(page, 'Snare Bottom.wav'), { timeout: 20_000 }).toBeGreaterThan(5);
+    await expect.poll(() => percentOf(page, 'Snare Bottom.wav'), { timeout: 30_000 }).toBeGreaterThan(5);
     await page.getByRole('button', { name: 'Pause Snare Bottom.wav' }).click();
     const paused = await percentOf(page, 'Snare Bottom.wav');
     expect(paused).toBeGreaterThan(0);
@@ -120,6 +121,10 @@ describe('delivering stems and reviewing them', () => {
     await expect.poll(() => page.getByTestId('transport-play').getAttribute('aria-pressed')).toBe('true');
     // The transport moves.
     await expect.poll(async () => (await page.getByLabel('Position').textContent())?.startsWith('0:00.0'), { timeout: 5_000 }).toBe(false);
+    // The whole stems take over from the first decoded part while playing, and playback goes on.
+    await expect.poll(() => page.evaluate(() => performance.getEntriesByName('review-whole').length), { timeout: 20_000 }).toBe(1);
+    const before = await page.getByLabel('Position').textContent();
+    await expect.poll(() => page.getByLabel('Position').textContent(), { timeout: 5_000 }).not.toBe(before);
     const mute = page.getByRole('button', { name: 'Mute Snare bottom' });
     await mute.click();
     expect(await mute.getAttribute('aria-pressed')).toBe('true');

@@ -4,6 +4,7 @@
 //   2. call the processor outside it, with an idempotency key derived from booking, action and version
 //   3. record the answer in another transaction (payable/refunds → processor:clearing)
 // A job retries step 2–3 for intents left half-way, so a crash never loses or doubles a movement.
+import { recordAudit } from '../audit/audit.service';
 import { randomUUID } from 'node:crypto';
 import type Stripe from 'stripe';
 import { and, eq, inArray, sql } from 'drizzle-orm';
@@ -565,6 +566,10 @@ export function createEscrowService(ctx: AppContext) {
       }
       const intents = applyPlan(tx, moved, plan, { key: `outcome:${moved.id}`, memo: `Released: ${reason}`, feeRefundMinor: 0, reason });
       repo.updateMoney(tx, moved.id, { outcome: 'release' });
+      // Dispute settlements write their own audit rows; a direct admin release is audited here.
+      if (admin && !songwriter && row.status !== 'disputed') {
+        recordAudit(tx, { actorId: actor.id, action: 'release', targetType: 'booking', targetId: row.id, amounts: { heldMinor: held, currency: row.currency }, note: reason });
+      }
       cancelAutoAccept(tx, moved.id);
       markAutoAcceptDone(tx, moved.id);
       notifyParties(tx, moved, 'Money released', `The money for "${moved.terms.songTitle}" is released (${reason}). Each payee receives their share less the platform commission.`);
@@ -584,7 +589,11 @@ export function createEscrowService(ctx: AppContext) {
       if (input.version !== undefined && input.version !== row.version) throw conflict('stale_booking', 'The booking changed meanwhile; reload and try again');
       assertNoOutcome(tx, row.id);
       const held = escrowHeld(tx, row.id, row.currency);
-      return input.amountMinor === undefined ? fullRefund(tx, row, held, reason) : partialRefund(tx, row, held, input.amountMinor, reason);
+      const done = input.amountMinor === undefined ? fullRefund(tx, row, held, reason) : partialRefund(tx, row, held, input.amountMinor, reason);
+      if (!isSystem(actor) && row.status !== 'disputed') {
+        recordAudit(tx, { actorId: actor.id, action: 'refund', targetType: 'booking', targetId: row.id, amounts: { songwriterMinor: done.refundedMinor, heldMinor: held, currency: row.currency }, note: reason });
+      }
+      return done;
     });
     await processBooking(bookingId);
     return { status: repo.booking(db, bookingId)!.status, refundedMinor: result.refundedMinor };

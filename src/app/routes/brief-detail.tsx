@@ -10,6 +10,7 @@ import { BriefStatusBadge } from '@/features/briefs/components/brief-status-badg
 import { BriefSummary } from '@/features/briefs/components/brief-summary';
 import { GuidePlayer } from '@/features/briefs/components/guide-player';
 import { GuideUpload } from '@/features/briefs/components/guide-upload';
+import { InviteDrummers } from '@/features/briefs/components/invite-drummers';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { styleLabel } from '@/features/briefs/components/format';
 import { useCreateQuote } from '@/features/quotes/api/create-quote';
@@ -35,7 +36,7 @@ function OwnerPanel({ brief }: { brief: BriefView }) {
               Publish brief
             </Button>
           </div>
-          <p className="text-sm text-ink-muted">Drafts are private. Once published, drummers can see the brief and quote; it can no longer be edited.</p>
+          <p className="text-sm text-ink-muted">Drafts are private. Once published, drummers can see the brief and quote, and you can invite drummers; it can no longer be edited.</p>
         </>
       ) : null}
       {brief.status !== 'draft' ? (
@@ -45,7 +46,11 @@ function OwnerPanel({ brief }: { brief: BriefView }) {
           </Link>
         </p>
       ) : null}
-      {brief.invitedDrummers?.length ? <p className="text-sm">Invited: {brief.invitedDrummers.map((d) => d.displayName).join(', ')}</p> : null}
+      {brief.status === 'open' ? (
+        <InviteDrummers brief={brief} />
+      ) : brief.invitedDrummers?.length ? (
+        <p className="text-sm">Invited: {brief.invitedDrummers.map((d) => d.displayName).join(', ')}</p>
+      ) : null}
       {brief.status === 'draft' || brief.status === 'open' ? (
         confirmWithdraw ? (
           <div className="flex flex-wrap items-center gap-3">

@@ -18,7 +18,8 @@ export const ACCESS: Record<string, Access> = {
   'POST /api/auth/resend-verification': 'user',
   'POST /api/auth/forgot-password': 'anyone',
   'POST /api/auth/reset-password': 'anyone',
-  'GET /api/me': 'user',
+  // The client shell asks who is signed in; signed out it answers {user:null}.
+  'GET /api/me': 'public',
   'PATCH /api/account': 'user',
   'POST /api/account/password': 'user',
   'POST /api/briefs': 'user',

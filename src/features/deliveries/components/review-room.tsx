@@ -40,11 +40,13 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
     engine.current = mt;
     performance.mark('review-open');
     let count = 0;
-    mt.load(stems.map((s) => ({ id: s.id, url: deliveryPaths.preview(delivery.id, s.id) })), () => setLoaded(++count), controller.signal)
+    const known = Math.max(0, ...(delivery.check.report?.stems ?? []).map((s) => s.durationSec));
+    mt.load(stems.map((s) => ({ id: s.id, url: deliveryPaths.preview(delivery.id, s.id) })), known, () => setLoaded(++count), controller.signal)
       .then(() => {
         performance.mark('review-playable');
         setDuration(mt.duration);
         setReady(true);
+        return mt.whenWhole().then(() => performance.mark('review-whole'));
       })
       .catch((e: unknown) => {
         if ((e as Error).name !== 'AbortError') setFailed(e instanceof Error ? e.message : 'The stems could not be loaded');

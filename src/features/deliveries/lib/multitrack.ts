@@ -1,3 +1,5 @@
+import { prefixBytes } from './mp3-frames';
+
 // The review room's audio: one AudioContext, every stem's compressed preview decoded once into an
 // AudioBuffer, and on play one AudioBufferSourceNode per stem, all started at the same context time. Web
 // Audio schedules those starts on the same sample frame, so the stems stay sample-aligned (the 10 ms
@@ -7,8 +9,11 @@
 export const PREVIEW_RATE = 24_000;
 // Scheduling a little ahead lets every source be created before the common start time arrives.
 const START_AHEAD_SEC = 0.06;
+// Decoding 12 four-minute previews takes seconds; the first seconds of each decode in a fraction of that,
+// so playback starts on those and switches to the whole stems, on one shared sample frame, when they are in.
+const FIRST_PART_SEC = 20;
 
-export type StemChannel = { id: string; buffer: AudioBuffer; gain: GainNode; level: number; muted: boolean; soloed: boolean };
+export type StemChannel = { id: string; buffer: AudioBuffer; full: boolean; gain: GainNode; level: number; muted: boolean; soloed: boolean };
 
 export class Multitrack {
   readonly context: AudioContext;
@@ -27,27 +32,65 @@ export class Multitrack {
     this.master.connect(this.context.destination);
   }
 
-  /** Fetches and decodes every preview in parallel; `onLoaded` reports each stem as it becomes playable. */
-  async load(stems: { id: string; url: string }[], onLoaded?: (id: string) => void, signal?: AbortSignal): Promise<void> {
-    const loaded = await Promise.all(
+  /**
+   * Fetches every preview and decodes the first seconds of each (resolves then: playable); the whole stems
+   * decode afterwards and take over without a gap. `durationSec` is the stems' known length (the check's).
+   */
+  async load(stems: { id: string; url: string }[], durationSec: number, onLoaded?: (id: string) => void, signal?: AbortSignal): Promise<void> {
+    this.knownDuration = durationSec;
+    const files = await Promise.all(
       stems.map(async (s) => {
         const res = await fetch(s.url, { credentials: 'same-origin', signal });
         if (!res.ok) throw new Error(`The preview of a stem could not be loaded (${res.status})`);
-        const buffer = await this.context.decodeAudioData(await res.arrayBuffer());
-        onLoaded?.(s.id);
-        return { id: s.id, buffer };
+        return { id: s.id, bytes: new Uint8Array(await res.arrayBuffer()) };
       }),
     );
-    this.channels = loaded.map(({ id, buffer }) => {
+    const firsts = await Promise.all(
+      files.map(async (f) => {
+        const cut = prefixBytes(f.bytes, FIRST_PART_SEC);
+        // decodeAudioData detaches what it is given: hand it a copy of the first part.
+        const buffer = await this.context.decodeAudioData(f.bytes.slice(0, cut).buffer);
+        onLoaded?.(f.id);
+        return { id: f.id, buffer, full: cut >= f.bytes.length };
+      }),
+    );
+    this.channels = firsts.map(({ id, buffer, full }) => {
       const gain = this.context.createGain();
       gain.connect(this.master);
-      return { id, buffer, gain, level: 1, muted: false, soloed: false };
+      return { id, buffer, full, gain, level: 1, muted: false, soloed: false };
     });
     this.applyGains();
+    this.wholeStems = this.decodeWhole(files, signal);
+  }
+
+  /** Resolves when every stem is decoded whole (playback no longer depends on the first part). */
+  whenWhole(): Promise<void> {
+    return this.wholeStems;
+  }
+
+  private knownDuration = 0;
+  private wholeStems: Promise<void> = Promise.resolve();
+
+  private async decodeWhole(files: { id: string; bytes: Uint8Array }[], signal?: AbortSignal): Promise<void> {
+    // One at a time: the page stays responsive and the first parts keep playing meanwhile.
+    const whole: { id: string; buffer: AudioBuffer }[] = [];
+    for (const f of files) {
+      if (signal?.aborted || this.context.state === 'closed') return;
+      const channel = this.channels.find((c) => c.id === f.id);
+      if (channel?.full) continue;
+      whole.push({ id: f.id, buffer: await this.context.decodeAudioData(f.bytes.buffer as ArrayBuffer) });
+    }
+    if (this.context.state === 'closed') return;
+    const swap = this.playingNow ? this.context.currentTime + START_AHEAD_SEC * 2 : null;
+    for (const w of whole) {
+      const c = this.channels.find((x) => x.id === w.id);
+      if (c) Object.assign(c, { buffer: w.buffer, full: true });
+    }
+    if (swap !== null) this.restartAt(swap);
   }
 
   get duration(): number {
-    return this.channels.reduce((max, c) => Math.max(max, c.buffer.duration), 0);
+    return Math.max(this.knownDuration, this.channels.reduce((max, c) => Math.max(max, c.buffer.duration), 0));
   }
 
   get playing(): boolean {
@@ -67,20 +110,39 @@ export class Multitrack {
 
   async play(from = this.position): Promise<number> {
     if (this.context.state === 'suspended') await this.context.resume();
-    this.stopSources();
-    this.offset = Math.max(0, Math.min(from, this.duration));
+    const target = Math.max(0, Math.min(from, this.duration));
+    // Beyond the decoded first part: wait for the whole stems rather than play silence.
+    if (this.channels.some((c) => !c.full && target > c.buffer.duration - 1)) await this.wholeStems;
+    this.offset = target;
     const when = this.context.currentTime + START_AHEAD_SEC;
+    this.restartAt(when, target);
+    return when;
+  }
+
+  /** Stops what plays and starts every stem at context time `when`, at transport position `at`. */
+  private restartAt(when: number, at = this.offset + Math.max(0, when - this.startedAt)): void {
+    const old = this.sources;
     this.sources = this.channels.map((c) => {
       const source = this.context.createBufferSource();
       source.buffer = c.buffer;
       source.connect(c.gain);
-      source.start(when, Math.min(this.offset, c.buffer.duration));
+      if (at < c.buffer.duration) source.start(when, at);
       return source;
     });
+    // The old sources end on the very frame the new ones begin: no gap, no overlap.
+    for (const s of old) {
+      try {
+        s.stop(when);
+      } catch {
+        // Never started (past its end): nothing to stop.
+      }
+    }
+    setTimeout(() => old.forEach((s) => s.disconnect()), (when - this.context.currentTime) * 1000 + 200);
+    this.offset = at;
     this.startedAt = when;
     this.playingNow = true;
-    this.endTimer = setTimeout(() => this.finish(), (this.duration - this.offset + START_AHEAD_SEC) * 1000 + 50);
-    return when;
+    if (this.endTimer) clearTimeout(this.endTimer);
+    this.endTimer = setTimeout(() => this.finish(), (this.duration - at + (when - this.context.currentTime)) * 1000 + 50);
   }
 
   pause(): void {

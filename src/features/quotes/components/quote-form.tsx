@@ -3,11 +3,13 @@ import { useForm } from 'react-hook-form';
 import { formatMoney, MoneyError, toMinor } from '@shared/money';
 import { QUOTE_VALIDITY_DAYS, quoteInputSchema, RIGHTS_LABELS, RIGHTS_TERMS, type QuoteValues } from '@shared/schemas/quotes';
 import type { BriefView } from '@shared/schemas/briefs';
+import type { MicPackageView } from '@shared/schemas/mic-packages';
 import { Alert, Button, FieldError, TextField } from '@/components/ui';
 import { fieldClasses } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { mapServerFields, schemaResolver, type Conversion } from '@/features/briefs/components/schema-resolver';
 import { LegalCaution } from './quote-terms';
+import { PackagePicker } from './package-picker';
 
 type QuoteFormValues = {
   perSongFee: string;
@@ -21,15 +23,15 @@ type QuoteFormValues = {
   message: string;
   validDays: string;
   withEngineer: boolean;
-  engineerId: string;
-  engineerShare: string;
+  packageId: string;
 };
 
 const API_TO_FIELD: Record<string, keyof QuoteFormValues> = {
   perSongFeeMinor: 'perSongFee',
   rushFeeMinor: 'rushFee',
   extraRevisionMinor: 'extraRevision',
-  engineerShareMinor: 'engineerShare',
+  engineerId: 'packageId',
+  engineerShareMinor: 'packageId',
 };
 const fieldOf = (apiPath: string) => API_TO_FIELD[apiPath] ?? apiPath;
 
@@ -49,6 +51,7 @@ function converter(currency: string) {
   return (v: QuoteFormValues): Conversion => {
     const errors: Record<string, string> = {};
     if (v.perSongFee.trim() === '') errors.perSongFee = 'Enter your fee per song';
+    if (v.withEngineer && !v.packageId) errors.packageId = 'Pick a room and one of its mic packages';
     return {
       errors,
       input: {
@@ -62,9 +65,10 @@ function converter(currency: string) {
         royaltyPoints: v.rightsTerms === 'points' && v.royaltyPoints.trim() ? num(v.royaltyPoints) : null,
         message: v.message,
         validDays: num(v.validDays),
-        packageId: null,
-        engineerId: v.withEngineer ? v.engineerId.trim() || null : null,
-        engineerShareMinor: v.withEngineer ? moneyOr(v.engineerShare, currency, 'engineerShare', errors, null) : null,
+        // The server fills in the engineer and their share from the package (resolvePackage).
+        packageId: v.withEngineer ? v.packageId || null : null,
+        engineerId: null,
+        engineerShareMinor: null,
       },
     };
   };
@@ -78,6 +82,7 @@ export function QuoteForm({ brief, onSend, busy }: { brief: BriefView; onSend: (
     register,
     handleSubmit,
     watch,
+    setValue,
     setError,
     formState: { errors },
   } = useForm<QuoteFormValues, unknown, QuoteValues>({
@@ -94,13 +99,14 @@ export function QuoteForm({ brief, onSend, busy }: { brief: BriefView; onSend: (
       message: '',
       validDays: String(QUOTE_VALIDITY_DAYS.default),
       withEngineer: false,
-      engineerId: '',
-      engineerShare: '',
+      packageId: '',
     },
   });
   const rights = watch('rightsTerms');
   const withEngineer = watch('withEngineer');
   const perSong = watch('perSongFee');
+  const packageId = watch('packageId');
+  const [picked, setPicked] = useState<MicPackageView | null>(null);
   const preview = (() => {
     try {
       return perSong.trim() ? formatMoney(toMinor(perSong.trim(), brief.currency) * brief.songCount, brief.currency) : null;
@@ -161,13 +167,27 @@ export function QuoteForm({ brief, onSend, busy }: { brief: BriefView; onSend: (
         <legend className="font-medium">Room and engineer</legend>
         <label className="flex items-center gap-3">
           <input type="checkbox" className="size-5 accent-brand-700" {...register('withEngineer')} />
-          An engineer records me in their room (they confirm before the songwriter can accept)
+          I record in a room listed on Kitlane (its engineer confirms before the songwriter can accept)
         </label>
         {withEngineer ? (
-          <div className="grid gap-5 sm:grid-cols-2">
-            <TextField label="Engineer’s Kitlane account id" error={err('engineerId')} {...register('engineerId')} />
-            <TextField label={`Engineer’s share (${c})`} inputMode="decimal" hint="Added to the total as the package price" error={err('engineerShare')} {...register('engineerShare')} />
-          </div>
+          <>
+            <PackagePicker
+              currency={c}
+              value={packageId || null}
+              error={err('packageId')}
+              onChange={(id, pkg) => {
+                setValue('packageId', id ?? '', { shouldValidate: false });
+                setPicked(pkg);
+              }}
+            />
+            {packageId && picked ? (
+              <p className="text-sm">
+                {picked.mine
+                  ? 'This is your own package: no engineer needs to confirm, and nothing is added to the total.'
+                  : `The package price, ${formatMoney(picked.priceMinor, c)}, is added to the quote total as ${picked.engineerName}’s share.`}
+              </p>
+            ) : null}
+          </>
         ) : null}
       </fieldset>
 

@@ -19,6 +19,8 @@ export function SearchFilters({ query, onApply, onClear }: { query: DrummerSearc
     }
     // A currency alone filters nothing useful; it only travels with a maximum rate.
     if (!values.maxRate) delete values.currency;
+    // The default order needs no place in a shared link.
+    if (values.sort === 'best') delete values.sort;
     onApply(values);
   };
   return (
