@@ -1,14 +1,12 @@
 // npm run bench:search: p50/p95 of GET /api/drummers over 10,000 invented profiles (scripts/seed-large.ts),
 // through the real app over loopback HTTP, next to the same SQL run directly on SQLite (the repository the
 // route calls, without HTTP, validation or JSON). Target: p95 under 20 ms (issue 3).
-import { mkdtempSync } from 'node:fs';
 import { Agent, request } from 'node:http';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseEnv } from '../server/env';
 import { boot } from '../server/boot';
-import { seedLarge } from '../scripts/seed-large';
+import { LARGE_DEFAULT_DIR, seedLarge } from '../scripts/seed-large';
 import { drummerSearchQuerySchema, DRUM_STYLES, RATE_CURRENCIES, SEARCH_SORTS, TZ_BAND_IDS } from '../shared/schemas/profiles';
 import { createSearchRepository } from '../server/features/search/search.repository';
 import { toSearchFilters } from '../server/features/search/search.service';
@@ -101,7 +99,7 @@ function getJson(agent: Agent, url: string): Promise<{ status: number; body: { t
 
 export async function runSearchBench(opts: { dataDir?: string; profiles?: number; queries?: number } = {}): Promise<SearchBenchResult> {
   const profiles = opts.profiles ?? 10_000;
-  const dataDir = resolve(opts.dataDir ?? process.env.BENCH_DATA_DIR ?? mkdtempSync(join(tmpdir(), 'kitlane-bench-search-')));
+  const dataDir = resolve(opts.dataDir ?? process.env.BENCH_DATA_DIR ?? LARGE_DEFAULT_DIR);
   await seedLarge(dataDir, profiles);
   const env = parseEnv({ ...process.env, NODE_ENV: 'production', DATA_DIR: dataDir, SEED_DEMO: 'false', START_FAKES: 'false', LOG_LEVEL: 'silent' });
   const running = await boot({ env, randomPorts: true, quiet: true, appDeps: { clientDist: null } });

@@ -1,4 +1,4 @@
-// npm run seed:large [-- --count 10000]: fills DATA_DIR (default ./data-large) with invented drummers for the
+// npm run seed:large [-- --count 10000 --dir D]: fills DATA_DIR (default bench/.cache/search-large) with invented drummers for the
 // search benchmark. Names come from syllables, texts from our own word lists, all from a seeded PRNG so two
 // runs make the same world. Profiles go through the profiles service, so the search triggers index them.
 import { randomUUID } from 'node:crypto';
@@ -15,6 +15,8 @@ import { createReelsRepository } from '../server/features/reels/reels.repository
 import { DRUM_STYLES, RATE_CURRENCIES, type DrummerProfileInput } from '../shared/schemas/profiles';
 
 export const LARGE_EMAIL_DOMAIN = 'large.kitlane.test';
+/** Git-ignored; the search bench reuses what is already there. */
+export const LARGE_DEFAULT_DIR = 'bench/.cache/search-large';
 
 const SYLLABLES = ['ka', 'lo', 'mer', 'vi', 'dan', 'sor', 'el', 'tu', 'ri', 'ban', 'qua', 'zel', 'mo', 'fen', 'ar', 'is', 'ot', 'len', 'dra', 'pe', 'nu', 'cor', 'sa', 'bel', 'hin', 'gro', 'lia', 'tes', 'vor', 'ym'];
 const ADJECTIVES = ['tight', 'loose', 'warm', 'punchy', 'dry', 'roomy', 'heavy', 'light', 'driving', 'laid-back', 'crisp', 'dark', 'bright', 'dynamic', 'steady', 'gritty', 'airy', 'swinging'];
@@ -132,7 +134,7 @@ function argValue(name: string): string | undefined {
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
-  const dataDir = argValue('--dir') ?? process.env.DATA_DIR ?? './data-large';
+  const dataDir = argValue('--dir') ?? process.env.DATA_DIR ?? LARGE_DEFAULT_DIR;
   const count = Number(argValue('--count') ?? 10_000);
   const result = await seedLarge(dataDir, count, process.env.DEMO_PASSWORD);
   console.log(`seed:large → ${resolve(dataDir)}: made ${result.made}, ${result.total} invented drummers in all (${(result.ms / 1000).toFixed(1)} s)`);

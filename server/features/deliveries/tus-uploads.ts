@@ -1,4 +1,4 @@
-// Resumable stem uploads over the open tus protocol (docs/decisions/006-resumable-uploads.md): @tus/server
+// Resumable stem uploads over the open tus protocol (docs/decisions/011-resumable-uploads.md): @tus/server
 // with its file store, mounted at /api/uploads. The upload id is the delivery file's id, so every tus
 // request is checked against that file's delivery and the signed-in user before tus touches the disk.
 import { createHash, type Hash } from 'node:crypto';

@@ -6,7 +6,7 @@ import type { PartId } from '@shared/stems/parts';
 import { deliveryQueryOptions } from '../api/get-delivery';
 import { addDeliveryFile, removeDeliveryFile } from '../api/delivery-files';
 
-// Resumable stem uploads with tus-js-client (docs/decisions/006-resumable-uploads.md). Each file gets a row
+// Resumable stem uploads with tus-js-client (docs/decisions/011-resumable-uploads.md). Each file gets a row
 // on the delivery first; its id is the tus upload id. The client remembers the upload URL (local storage,
 // keyed by that id), so after a dropped connection, a pause or a reload it asks the server for the offset
 // (HEAD) and sends only the rest.
