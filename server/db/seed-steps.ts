@@ -5,6 +5,7 @@ import { briefsSeedStep } from '../features/briefs/briefs.seed';
 import { roomsSeedStep } from '../features/rooms/rooms.seed';
 import { paymentsSeedStep } from '../features/payments/payments.seed';
 import { disputesSeedStep } from '../features/disputes/disputes.seed';
+import { deliveriesSeedStep } from '../features/deliveries/deliveries.seed';
 
 /** What the seed knows after creating the demo accounts: demo key (e.g. 'mara') → user id. */
 export type SeedState = { userIds: Record<string, string>; [k: string]: unknown };
@@ -25,6 +26,8 @@ export const seedSteps: SeedStep[] = [
   paymentsSeedStep,
   // After payments: needs its paid-out booking for a review, and payees with payout accounts.
   disputesSeedStep,
+  // After payments: gives their delivered booking a real, checked and submitted v1.
+  deliveriesSeedStep,
   // Keep last: the demo conversations are about the briefs, quotes and bookings the steps above create.
   messagesSeedStep,
 ];

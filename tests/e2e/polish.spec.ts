@@ -158,4 +158,17 @@ describe('marketplace polish', () => {
     await message.click();
     await eventually(() => songwriter.page.url()).toMatch(/\/messages\//);
   });
+
+  it('opens the booking’s conversation from the booking page, for a party to the booking', async () => {
+    const songwriter = await session('mobile');
+    await signIn(songwriter.page, 'mara@kitlane.test');
+    const list = (await (await songwriter.page.request.get(`${server.url}/api/bookings`)).json()) as { items: { id: string }[] };
+    expect(list.items.length).toBeGreaterThan(0);
+    await songwriter.page.goto(`${server.url}/bookings/${list.items[0].id}`);
+    const message = songwriter.page.getByRole('button', { name: 'Message about this booking' });
+    await eventually(() => message.count()).toBe(1);
+    await screenshot(songwriter.page, 'polish-booking-message-mobile');
+    await message.click();
+    await eventually(() => songwriter.page.url()).toMatch(/\/messages\//);
+  });
 });

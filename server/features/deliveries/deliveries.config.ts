@@ -8,9 +8,11 @@ const settingsSchema = z.object({
   DELIVERY_MAX_FILE_BYTES: z.coerce.number().int().min(1024).default(DELIVERY_DEFAULT_MAX_FILE_BYTES),
   /** Worker threads for the delivery check (default: cores − 1, at least 1). */
   DELIVERY_CHECK_THREADS: z.coerce.number().int().min(1).max(32).optional(),
+  /** Hours without a written byte after which an unfinished upload and its part are removed (default 24). */
+  DELIVERY_ABANDONED_UPLOAD_HOURS: z.coerce.number().positive().max(24 * 365).default(24),
 });
 
-export type DeliverySettings = { maxFileBytes: number; maxFiles: number; checkThreads: number | undefined };
+export type DeliverySettings = { maxFileBytes: number; maxFiles: number; checkThreads: number | undefined; abandonedUploadMs: number };
 
 export function readDeliverySettings(source: NodeJS.ProcessEnv = process.env): DeliverySettings {
   const parsed = settingsSchema.safeParse(source);
@@ -18,5 +20,10 @@ export function readDeliverySettings(source: NodeJS.ProcessEnv = process.env): D
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Invalid delivery settings:\n${lines.join('\n')}`);
   }
-  return { maxFileBytes: parsed.data.DELIVERY_MAX_FILE_BYTES, maxFiles: DELIVERY_MAX_FILES, checkThreads: parsed.data.DELIVERY_CHECK_THREADS };
+  return {
+    maxFileBytes: parsed.data.DELIVERY_MAX_FILE_BYTES,
+    maxFiles: DELIVERY_MAX_FILES,
+    checkThreads: parsed.data.DELIVERY_CHECK_THREADS,
+    abandonedUploadMs: parsed.data.DELIVERY_ABANDONED_UPLOAD_HOURS * 3_600_000,
+  };
 }

@@ -15,6 +15,7 @@ import {
 } from '@shared/schemas/deliveries';
 import { parseRange } from '../reels/http-range';
 import { contentDisposition } from '../messages/content-disposition';
+import { registerAbandonedUploadSweep } from './abandoned-uploads';
 import { readDeliverySettings } from './deliveries.config';
 import { createDeliveriesService } from './deliveries.service';
 import { registerDeliveryJobs } from './delivery-jobs';
@@ -65,6 +66,7 @@ export function deliveriesRoutes(ctx: AppContext): Router {
     uploads.store.forget(fileId);
     await uploads.store.remove(fileId).catch(() => undefined);
   };
+  registerAbandonedUploadSweep(ctx, service, { dir: uploads.dir, olderThanMs: settings.abandonedUploadMs, dropUpload });
 
   const r = Router();
 

@@ -33,17 +33,32 @@ async function localFile(ctx: AppContext, key: string, scratch: string, name: st
 }
 
 export function registerDeliveryJobs(ctx: AppContext, service: DeliveriesService, settings: DeliverySettings): void {
-  const { db, storage } = ctx;
-  const bookings = createBookingsRepository(db);
-
   // One process owns the SQLite file, so a check or preview still marked running at boot was cut off by a
   // crash or restart: run it again now instead of waiting out its lease.
-  db.update(jobsTable)
+  ctx.db
+    .update(jobsTable)
     .set({ status: 'queued', lockedBy: null, lockedUntil: null, runAt: Date.now() })
     .where(and(inArray(jobsTable.kind, [CHECK_JOB, PREVIEW_JOB]), eq(jobsTable.status, 'running')))
     .run();
+  const work = deliveryWork(ctx, service, settings);
+  ctx.jobs.register(PREVIEW_JOB, work.preview);
+  ctx.jobs.register(CHECK_JOB, work.check);
+}
 
-  ctx.jobs.register(PREVIEW_JOB, async ({ fileId }: { fileId: string }, { attempt }) => {
+export type DeliveryWork = {
+  preview(payload: { fileId: string }, at: { attempt: number }): Promise<void>;
+  check(payload: { deliveryId: string; run: number }, at: { attempt: number }): Promise<void>;
+};
+
+/**
+ * The job handlers as plain functions, so the demo seed can run them before the job runner starts; the
+ * jobs it also enqueued find the work done and return (both handlers are idempotent).
+ */
+export function deliveryWork(ctx: AppContext, service: DeliveriesService, settings: DeliverySettings): DeliveryWork {
+  const { db, storage } = ctx;
+  const bookings = createBookingsRepository(db);
+
+  const preview: DeliveryWork['preview'] = async ({ fileId }, { attempt }) => {
     const file = repo.file(db, fileId);
     if (!file || file.status !== 'uploaded' || !file.storageKey || file.previewStatus === 'ready') return;
     const scratch = await mkdtemp(join(tmpdir(), 'kitlane-preview-'));
@@ -66,7 +81,7 @@ export function registerDeliveryJobs(ctx: AppContext, service: DeliveriesService
     } finally {
       await rm(scratch, { recursive: true, force: true });
     }
-  });
+  };
 
   function markPreview(file: DeliveryFileRow, status: 'ready' | 'failed', key: string | null): void {
     inTransaction(db, (tx) => {
@@ -76,7 +91,7 @@ export function registerDeliveryJobs(ctx: AppContext, service: DeliveriesService
     });
   }
 
-  ctx.jobs.register(CHECK_JOB, async ({ deliveryId, run }: { deliveryId: string; run: number }, { attempt }) => {
+  const check: DeliveryWork['check'] = async ({ deliveryId, run }, { attempt }) => {
     const current = () => {
       const d = repo.delivery(db, deliveryId);
       return d && d.checkRun === run && !d.submittedAt ? d : null;
@@ -139,5 +154,7 @@ export function registerDeliveryJobs(ctx: AppContext, service: DeliveriesService
       await pool.destroy();
       await rm(scratch, { recursive: true, force: true });
     }
-  });
+  };
+
+  return { preview, check };
 }

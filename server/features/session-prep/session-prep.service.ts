@@ -25,12 +25,13 @@ export function createSessionPrepService(ctx: Pick<AppContext, 'db'>, clock: () 
     const crew = booking ? [booking.drummerId, booking.engineerId, room?.engineerId].filter((id): id is string => !!id) : [];
     const party = booking && (booking.songwriterId === user.id || crew.includes(user.id) || can(user.roles, 'read:booking:any'));
     if (!booking || !party) throw notFound('That booking');
-    if (!room) throw notFound('A prep checklist for this booking (it has no room)');
     return { booking, room, isCrew: crew.includes(user.id) };
   }
 
-  function view(user: CurrentUser, bookingId: string): SessionPrepView {
+  /** Null for a booking without a room: it simply has no checklist (not an error the page should show). */
+  function view(user: CurrentUser, bookingId: string): SessionPrepView | null {
     const { booking, room, isCrew } = load(user, bookingId);
+    if (!room) return null;
     const history = repo.events(bookingId).map(toEventView);
     const items = PREP_ITEMS.map((item) => {
       const last = history.filter((e) => e.itemId === item.id).at(-1) ?? null;
@@ -52,7 +53,8 @@ export function createSessionPrepService(ctx: Pick<AppContext, 'db'>, clock: () 
 
     /** Ticks or unticks one item; a change to the state it already has is not recorded twice. */
     tick(user: CurrentUser, bookingId: string, itemId: PrepItemId, done: boolean): SessionPrepView {
-      const { booking, isCrew } = load(user, bookingId);
+      const { booking, room, isCrew } = load(user, bookingId);
+      if (!room) throw notFound('A prep checklist for this booking (it has no room)');
       if (!isCrew) throw forbidden('Only the drummer and the engineer of this booking tick its prep checklist');
       inTransaction(ctx.db, (tx) => {
         const current = repo.booking(bookingId, tx);
@@ -63,7 +65,7 @@ export function createSessionPrepService(ctx: Pick<AppContext, 'db'>, clock: () 
         if ((last?.done ?? false) === done) return;
         repo.insertEvent({ id: randomUUID(), bookingId, itemId, done, userId: user.id, at: clock() }, tx);
       });
-      return view(user, bookingId);
+      return view(user, bookingId)!;
     },
   };
 }

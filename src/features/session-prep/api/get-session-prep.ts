@@ -3,13 +3,13 @@ import type { SessionPrepView } from '@shared/schemas/session-prep';
 import { api } from '@/lib/api-client';
 import { sessionPrepKeys } from './keys';
 
-export async function getSessionPrep(bookingId: string, signal?: AbortSignal): Promise<SessionPrepView> {
-  return (await api.get<{ prep: SessionPrepView }>(`/api/bookings/${encodeURIComponent(bookingId)}/prep`, { signal })).prep;
+export async function getSessionPrep(bookingId: string, signal?: AbortSignal): Promise<SessionPrepView | null> {
+  return (await api.get<{ prep: SessionPrepView | null }>(`/api/bookings/${encodeURIComponent(bookingId)}/prep`, { signal })).prep;
 }
 
 export function sessionPrepQueryOptions(bookingId: string) {
-  // A booking without a room answers 404: that is "no checklist", not an error worth retrying.
-  return queryOptions({ queryKey: sessionPrepKeys.forBooking(bookingId), queryFn: ({ signal }) => getSessionPrep(bookingId, signal), retry: false });
+  // A booking without a room answers {prep: null}: it has no checklist.
+  return queryOptions({ queryKey: sessionPrepKeys.forBooking(bookingId), queryFn: ({ signal }) => getSessionPrep(bookingId, signal) });
 }
 
 export function useSessionPrep(bookingId: string) {

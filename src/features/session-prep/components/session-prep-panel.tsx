@@ -1,5 +1,4 @@
 import { Alert, Card, Spinner } from '@/components/ui';
-import { isApiError } from '@/lib/api-client';
 import { useSessionPrep } from '../api/get-session-prep';
 import { useTickPrepItem } from '../api/tick-prep-item';
 
@@ -10,11 +9,9 @@ export function SessionPrepPanel({ bookingId }: { bookingId: string }) {
   const prep = useSessionPrep(bookingId);
   const tick = useTickPrepItem(bookingId);
   if (prep.isPending) return <Spinner label="Loading the prep checklist" />;
-  if (prep.error) {
-    if (isApiError(prep.error) && prep.error.status === 404) return null;
-    return <Alert tone="error">The prep checklist could not be loaded: {prep.error.message}</Alert>;
-  }
+  if (prep.error) return <Alert tone="error">The prep checklist could not be loaded: {prep.error.message}</Alert>;
   const p = prep.data;
+  if (!p) return null;
   return (
     <Card className="space-y-3" data-testid="session-prep">
       <h2 className="text-xl font-bold">
