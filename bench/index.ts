@@ -102,10 +102,12 @@ async function loadRows(): Promise<BenchRow[]> {
     },
     {
       bench: 'load: errors (incl. timeouts) / timeouts / other non-2xx / 429',
-      figure: `${r.errors} / ${r.timeouts} / ${r.otherNon2xx} / ${r.rateLimited}`,
+      // The status breakdown names what the non-2xx answers were (e.g. 401 vs 503), so a failed run says why.
+      figure: `${r.errors} / ${r.timeouts} / ${r.otherNon2xx} / ${r.rateLimited}; statuses ${Object.entries(r.statusCounts).map(([c, n]) => `${c}×${n}`).join(' ')}`,
       target: '0 / 0 / 0 (429 counted apart)',
       status: verdict(loadPassed(r)),
     },
+    ...Object.entries(r.nonOk).map(([key, v]) => ({ bench: `load: non-2xx ${key}`, figure: `${v.count}× e.g. ${v.sample.slice(0, 80)}`, target: 'none', status: 'FAIL' as Status })),
   ];
 }
 

@@ -188,7 +188,7 @@ function startServer(dataDir: string): Promise<{ url: string; child: ChildProces
 
 // ---------------------------------------------------------------- traffic
 
-type AutocannonRequest = { method?: string; path: string; headers?: Record<string, string>; body?: string };
+type AutocannonRequest = { method?: string; path: string; headers?: Record<string, string>; body?: string; onResponse?: (status: number, body: string) => void };
 type AutocannonResult = {
   requests: { average: number; total: number };
   errors: number;
@@ -265,6 +265,7 @@ export type LoadBenchResult = {
   rateLimited: number;
   otherNon2xx: number;
   statusCounts: Record<string, number>;
+  nonOk: Record<string, { count: number; sample: string }>;
   seedMs: number;
 };
 
@@ -273,7 +274,17 @@ export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; co
   const { ms: seedMs } = await seedLoadWorld(dataDir);
   const { url, child } = await startServer(dataDir);
   try {
-    const requests = await trafficPlan(url, dataDir);
+    // Every non-2xx answer is tallied by route shape and status, with one body kept, so a failed run says why.
+    const nonOk: Record<string, { count: number; sample: string }> = {};
+    const requests = (await trafficPlan(url, dataDir)).map((req) => ({
+      ...req,
+      onResponse: (status: number, body: string) => {
+        if (status >= 200 && status < 300) return;
+        const key = `${status} ${req.method ?? 'GET'} ${req.path.replace(/[0-9a-f-]{36}/g, ':id').replace(/\?.*$/, '')}`;
+        nonOk[key] ??= { count: 0, sample: String(body ?? '').slice(0, 200) };
+        nonOk[key].count++;
+      },
+    }));
     const connections = opts.connections ?? 100;
     const duration = opts.quick ? 5 : 30;
     // Every response time is kept so p95 is an exact percentile (autocannon's summary has p90 and p97.5, not p95).
@@ -297,6 +308,7 @@ export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; co
       rateLimited,
       otherNon2xx: r.non2xx - rateLimited,
       statusCounts,
+      nonOk,
       seedMs: Math.round(seedMs),
     };
   } finally {

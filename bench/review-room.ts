@@ -40,6 +40,10 @@ export interface ReviewRoomBenchResult {
   stemSeconds: number;
   /** Navigation start → the transport is playing (the page's review-playing mark). */
   openToPlaySec: number;
+  /** Navigation start → the review room mounted and started loading the previews (page, auth and delivery loaded). */
+  openToEngineSec: number;
+  /** Navigation start → the last preview fully received. */
+  previewsInSec: number;
   /** Navigation start → every stem's first part decoded and Play enabled. */
   openToPlayableSec: number;
   /** Navigation start → the whole stems decoded and swapped in. */
@@ -165,7 +169,10 @@ async function measureInBrowser(browser: Browser, url: string, deliveryId: strin
   await play.click();
   await page.waitForFunction(() => performance.getEntriesByName('review-playing').length > 0, undefined, { timeout: 60_000 });
   await page.waitForFunction(() => performance.getEntriesByName('review-whole').length > 0, undefined, { timeout: 180_000 });
-  const marks = await page.evaluate(() => Object.fromEntries(['review-playable', 'review-playing', 'review-whole'].map((n) => [n, performance.getEntriesByName(n)[0]?.startTime ?? NaN])));
+  const marks = await page.evaluate(() => Object.fromEntries(['review-open', 'review-playable', 'review-playing', 'review-whole'].map((n) => [n, performance.getEntriesByName(n)[0]?.startTime ?? NaN])));
+  const previewsInSec = await page.evaluate(
+    () => Math.max(0, ...performance.getEntriesByType('resource').filter((e) => e.name.endsWith('/preview')).map((e) => (e as PerformanceResourceTiming).responseEnd)) / 1000,
+  );
   // Still playing a second later, and the clock moved: the transport really runs.
   const before = await page.getByLabel('Position').textContent();
   await page.waitForTimeout(1000);
@@ -185,6 +192,8 @@ async function measureInBrowser(browser: Browser, url: string, deliveryId: strin
   return {
     openToPlaySec: marks['review-playing'] / 1000,
     openToPlayableSec: marks['review-playable'] / 1000,
+    openToEngineSec: marks['review-open'] / 1000,
+    previewsInSec,
     openToWholeSec: marks['review-whole'] / 1000,
     jsHeapMb: heap / 1024 / 1024,
     rendererRssMb,
@@ -218,6 +227,8 @@ async function main(): Promise<void> {
   const r = await runReviewRoomBench();
   const rows = [
     ['navigation → playing (target ≤ 2 s)', `${r.openToPlaySec.toFixed(2)} s`],
+    ['navigation → review room mounted', `${r.openToEngineSec.toFixed(2)} s`],
+    ['navigation → last preview received', `${r.previewsInSec.toFixed(2)} s`],
     ['navigation → playable', `${r.openToPlayableSec.toFixed(2)} s`],
     ['navigation → whole stems decoded', `${r.openToWholeSec.toFixed(2)} s`],
     ['JS heap in use (page)', `${r.jsHeapMb.toFixed(0)} MB`],

@@ -11,6 +11,8 @@ export function useMarkThreadRead() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: markThreadRead,
+    // A header poll already in flight would land after the read and bring the old count back.
+    onMutate: () => queryClient.cancelQueries({ queryKey: unreadQueryOptions().queryKey }),
     onSuccess: ({ unread }) => {
       // The header badge drops at once instead of on its next poll.
       queryClient.setQueryData(unreadQueryOptions().queryKey, (old) => (old ? { ...old, messages: unread } : old));
