@@ -62,7 +62,14 @@ async function openBooking(page: Page): Promise<void> {
   await page.waitForURL(/\/bookings\/[^/?]+$/);
 }
 
-const percentOf = async (page: Page, name: string) => Number((await page.locator(`[data-file-name="${name}"] [data-testid="upload-percent"]`).textContent().catch(() => '0%'))?.replace('%', '') ?? 0);
+/** The row's percentage; a finished upload drops its progress line, so "uploaded" reads as 100. */
+async function percentOf(page: Page, name: string): Promise<number> {
+  const row = page.locator(`[data-file-name="${name}"]`);
+  if ((await row.getByText(/· uploaded ·/).count()) > 0) return 100;
+  const percent = row.locator('[data-testid="upload-percent"]');
+  if ((await percent.count()) === 0) return 0;
+  return Number(((await percent.textContent()) ?? '0%').replace('%', ''));
+}
 
 async function uploadAndSubmit(page: Page, version: number, opts: { interrupt: boolean }): Promise<void> {
   await openBooking(page);
