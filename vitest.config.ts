@@ -43,6 +43,9 @@ export default defineConfig({
           testTimeout: 120_000,
           hookTimeout: 180_000,
           fileParallelism: false,
+          // Browser tests race real timers, polling and a shared 2-core machine; a failure must repeat
+          // twice more before it counts, so a timing hiccup does not hide the rest of the run.
+          retry: 2,
         },
       },
     ],
