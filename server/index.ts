@@ -16,7 +16,7 @@ async function main() {
   }
   const dev = process.argv.includes('--dev');
   const running = await boot({ env, dev });
-  printWelcome(running.url, running.mailWebUrl, env.DEMO_PASSWORD);
+  printWelcome(running.url, running.mailWebUrl, running.payments?.url ?? null, env.DEMO_PASSWORD);
 
   let stopping = false;
   const stop = async (signal: string) => {
@@ -32,12 +32,13 @@ async function main() {
   process.on('SIGTERM', () => void stop('SIGTERM'));
 }
 
-function printWelcome(url: string, mailUrl: string | null, password: string) {
+function printWelcome(url: string, mailUrl: string | null, paymentsUrl: string | null, password: string) {
   const byRole = (role: string) => DEMO_PEOPLE.filter((p) => p.roles.includes(role as never)).map((p) => p.email);
   console.log(`
 Kitlane is running
   app           ${url}
   mail inbox    ${mailUrl ?? '(external SMTP)'}
+  payment fake  ${paymentsUrl ?? '(external processor)'}
 Demo logins (password: ${password})
   admin         ${byRole('admin').join(', ')}
   songwriters   ${byRole('songwriter').join(', ')}
