@@ -113,6 +113,16 @@ async function loadRows(): Promise<BenchRow[]> {
 
 let builtDist: string | null = null;
 
+async function reviewRoomRows(): Promise<BenchRow[]> {
+  if (quick) return [{ bench: 'review room open → playing (12 × 4 min)', figure: 'skipped (--quick)', target: '≤ 2 s, ≤ 600 MB', status: 'skipped' }];
+  const { runReviewRoomBench } = await import('./review-room');
+  const r = await runReviewRoomBench();
+  return [
+    { bench: `review room open → playing (${r.stems} stems)`, figure: `${r.openToPlaySec.toFixed(2)} s`, target: '≤ 2 s', status: verdict(r.openToPlaySec <= 2) },
+    { bench: 'review room renderer memory', figure: `${Math.round(r.rendererRssMb)} MB`, target: '≤ 600 MB', status: verdict(r.rendererRssMb <= 600) },
+  ];
+}
+
 async function bundleRows(): Promise<BenchRow[]> {
   builtDist = await buildClient();
   const r = await runBundleBench({ outDir: builtDist });
@@ -153,6 +163,7 @@ async function main(): Promise<void> {
   rows.push(...(await section('upload', uploadRows)));
   rows.push(...(await section('search', searchRows)));
   rows.push(...(await section('load', loadRows)));
+  rows.push(...(await section('review room', reviewRoomRows)));
   rows.push(...(await section('bundle', bundleRows)));
   rows.push(...(await section('lighthouse', lighthouseRows)));
   process.stdout.write(`\nKitlane benchmarks — ${started.toISOString()}${quick ? ' (--quick)' : ''}\n${formatTable(rows)}\n`);
