@@ -194,6 +194,8 @@ describe('account upkeep in the browser', () => {
     const newPassword = 'paradiddle-on-the-ride';
     await page.goto(`${server.url}/sign-in`);
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
+    // The page is lazy-loaded: wait for it, or the click lands on the sign-in form still on screen.
+    await eventually(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Forgot your password?');
     await page.getByLabel('Email').fill(email);
     await page.getByRole('button', { name: 'Send me a reset link' }).click();
     await eventually(() => page.getByRole('status').filter({ hasText: 'If an account uses that address' }).count()).toBe(1);
