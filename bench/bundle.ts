@@ -1,7 +1,7 @@
 // The client's first download: build with Vite into a private folder, then measure what index.html makes the
 // browser fetch before anything lazy — the entry script, its static imports (followed through the built chunks,
 // not only the modulepreload hints) and the stylesheets — gzip-compressed as a server would send them.
-// Target: initial JS ≤ 180 kB gzip (issue 7; docs/decisions/010-client-bundle.md).
+// Target: initial JS ≤ 180 kB gzip (issue 7; docs/decisions/009-client-bundle.md).
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, posix, resolve } from 'node:path';
