@@ -4,7 +4,7 @@ import { cleanup, render, screen } from '@testing-library/react';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { fakeServer, testQueryClient } from '@/testing/render-with-providers';
-import { COMING_SOON, createRoutes } from './router';
+import { createRoutes } from './router';
 
 afterEach(() => {
   cleanup();
@@ -60,13 +60,6 @@ describe('app routes', () => {
     expect(screen.getByRole('link', { name: 'Back to the home page' }).getAttribute('href')).toBe('/');
   });
 
-  // Stubs disappear as later issues build their pages; the test follows whichever one is left.
-  it.skipIf(COMING_SOON.length === 0)('renders a not-yet-built page as the coming-soon stub with its own title', async () => {
-    const stub = COMING_SOON[0]!;
-    startAt(stub.path, drummer);
-    expect(await h1()).toBe(stub.title);
-    expect(screen.getByText('Coming soon in this build')).toBeTruthy();
-  });
 
   it('shows the error page with a way back when the server cannot be reached', async () => {
     vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('fetch failed'))));

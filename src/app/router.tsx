@@ -11,7 +11,6 @@ import { deliveryQueryOptions } from '@/features/deliveries/api/get-delivery';
 import { roomQueryOptions } from '@/features/rooms/api/get-room';
 import { RootLayout } from './routes/root';
 import { RouteError, RootError } from './routes/route-error';
-import type { ComingSoonHandle } from './routes/coming-soon';
 
 // Pages are separate chunks (React Router `lazy`), so the home page does not carry later, heavier features.
 const page = {
@@ -35,7 +34,6 @@ const page = {
   bookings: () => import('./routes/bookings'),
   booking: () => import('./routes/booking-detail'),
   delivery: () => import('./routes/delivery'),
-  comingSoon: () => import('./routes/coming-soon'),
   findDrummers: () => import('./routes/find-drummers'),
   drummer: () => import('./routes/drummer-profile'),
   engineer: () => import('./routes/engineer-profile'),
@@ -58,10 +56,6 @@ const page = {
   adminLedger: () => import('./routes/admin-ledger'),
   adminAudit: () => import('./routes/admin-audit'),
 };
-
-/** Route stubs: navigation targets whose features later issues build. Each renders the one coming-soon page. */
-export const COMING_SOON: Array<{ path: string; title: string; description: string; signedIn: boolean }> = [
-];
 
 function pathOf(request: Request): string {
   const url = new URL(request.url);
@@ -98,13 +92,6 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
     if (me.user) throw redirect(paths.home.getHref());
     return null;
   };
-
-  const comingSoonRoutes: RouteObject[] = COMING_SOON.map((stub) => ({
-    path: stub.path,
-    lazy: page.comingSoon,
-    loader: stub.signedIn ? requireSignedIn : undefined,
-    handle: { comingSoon: { title: stub.title, description: stub.description } } satisfies ComingSoonHandle,
-  }));
 
   return [
     {
@@ -162,7 +149,6 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.drummer.path, lazy: page.drummer },
             { path: paths.engineer.path, lazy: page.engineer },
             { path: paths.myProfile.path, lazy: page.myProfile, loader: requireSignedIn },
-            ...comingSoonRoutes,
             { path: '*', lazy: page.notFound },
           ],
         },
