@@ -1,26 +1,12 @@
-// The drum parts a delivered stem can be, how a part is guessed from a file name, and which parts
-// are related closely enough to compare for time offset and polarity. Part ids are the same strings as
-// the mic-package source ids, so a booking's input list can pre-fill the stem names.
+import { SOURCE_IDS, type SourceId } from '../mic-package/sources';
 
-export const PART_IDS = [
-  'kick_in',
-  'kick_out',
-  'snare_top',
-  'snare_bottom',
-  'hi_hat',
-  'rack_tom_1',
-  'rack_tom_2',
-  'rack_tom_3',
-  'floor_tom_1',
-  'floor_tom_2',
-  'overhead_l',
-  'overhead_r',
-  'room_l',
-  'room_r',
-  'room_mono',
-  'other',
-] as const;
-export type PartId = (typeof PART_IDS)[number];
+// The drum parts a delivered stem can be, how a part is guessed from a file name, and which parts
+// are related closely enough to compare for time offset and polarity. Part ids are the mic-package source
+// ids (one list), so a booking's input list can pre-fill the stem names.
+
+// One list of ids for both vocabularies: a stem's part is the source its mic was on.
+export const PART_IDS = SOURCE_IDS;
+export type PartId = SourceId;
 
 export type PartRole = 'close' | 'overhead' | 'room' | 'other';
 

@@ -1,6 +1,8 @@
 // A demo guide track of our own: a click on every beat (accented on the one) over a plain bass-like tone
 // that walks root–fifth–octave–fifth, one note per bar. Synthesised here; no recording from anywhere.
 
+import { encodeWav16Mono } from '../../audio/wav-encode';
+
 export type GuideSynthOptions = { seconds: number; tempoBpm: number; rootHz: number; sampleRate?: number; beatsPerBar?: number };
 
 const TWO_PI = 2 * Math.PI;
@@ -35,31 +37,7 @@ export function synthGuide(opts: GuideSynthOptions): Float32Array {
   return out;
 }
 
-/** A 16-bit PCM mono WAV file (44-byte canonical header) of the samples. */
-export function encodeWav16(samples: Float32Array, sampleRate: number): Buffer {
-  const data = Buffer.alloc(samples.length * 2);
-  for (let i = 0; i < samples.length; i++) {
-    const v = Math.max(-1, Math.min(1, samples[i]));
-    data.writeInt16LE(Math.round(v < 0 ? v * 0x8000 : v * 0x7fff), i * 2);
-  }
-  const header = Buffer.alloc(44);
-  header.write('RIFF', 0, 'latin1');
-  header.writeUInt32LE(36 + data.length, 4);
-  header.write('WAVE', 8, 'latin1');
-  header.write('fmt ', 12, 'latin1');
-  header.writeUInt32LE(16, 16);
-  header.writeUInt16LE(1, 20);
-  header.writeUInt16LE(1, 22);
-  header.writeUInt32LE(sampleRate, 24);
-  header.writeUInt32LE(sampleRate * 2, 28);
-  header.writeUInt16LE(2, 32);
-  header.writeUInt16LE(16, 34);
-  header.write('data', 36, 'latin1');
-  header.writeUInt32LE(data.length, 40);
-  return Buffer.concat([header, data]);
-}
-
 export function guideWav(opts: GuideSynthOptions): Buffer {
   const rate = opts.sampleRate ?? 44100;
-  return encodeWav16(synthGuide({ ...opts, sampleRate: rate }), rate);
+  return encodeWav16Mono(synthGuide({ ...opts, sampleRate: rate }), rate);
 }

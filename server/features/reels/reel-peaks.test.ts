@@ -3,7 +3,8 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { computeWavPeaks, fitPeaks, samplesPerPixelFor } from './reel-peaks';
-import { encodeWav16Mono, synthReelSamples } from './reel-synth';
+import { encodeWav16Mono } from '../../audio/wav-encode';
+import { synthReelSamples } from './reel-synth';
 
 const dir = mkdtempSync(join(tmpdir(), 'kitlane-reel-peaks-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

@@ -2,6 +2,8 @@
 // (a sine swept down with a fast decay), a snare a noise burst over a low tone, a hi-hat a short burst of
 // high-passed noise, placed on a tempo grid. Written as 16-bit PCM mono WAV.
 
+import { encodeWav16Mono } from '../../audio/wav-encode';
+
 export type ReelFeel = 'straight' | 'half-time' | 'shuffle' | 'four-on-the-floor';
 
 export type ReelSynthOptions = { seconds: number; tempo: number; sampleRate?: 44100 | 48000; seed?: number; feel?: ReelFeel };
@@ -95,30 +97,6 @@ function normalise(samples: Float32Array, peak: number): void {
   if (max === 0) return;
   const k = peak / max;
   for (let i = 0; i < samples.length; i++) samples[i] *= k;
-}
-
-/** 16-bit PCM mono WAV: RIFF header, `fmt ` (PCM = 1), `data`. */
-export function encodeWav16Mono(samples: Float32Array, sampleRate: number): Buffer {
-  const data = Buffer.alloc(samples.length * 2);
-  for (let i = 0; i < samples.length; i++) {
-    const v = Math.max(-1, Math.min(1, samples[i]));
-    data.writeInt16LE(Math.round(v < 0 ? v * 32768 : v * 32767), i * 2);
-  }
-  const header = Buffer.alloc(44);
-  header.write('RIFF', 0, 'latin1');
-  header.writeUInt32LE(36 + data.length, 4);
-  header.write('WAVE', 8, 'latin1');
-  header.write('fmt ', 12, 'latin1');
-  header.writeUInt32LE(16, 16);
-  header.writeUInt16LE(1, 20);
-  header.writeUInt16LE(1, 22);
-  header.writeUInt32LE(sampleRate, 24);
-  header.writeUInt32LE(sampleRate * 2, 28);
-  header.writeUInt16LE(2, 32);
-  header.writeUInt16LE(16, 34);
-  header.write('data', 36, 'latin1');
-  header.writeUInt32LE(data.length, 40);
-  return Buffer.concat([header, data]);
 }
 
 export function synthReelWav(opts: ReelSynthOptions): Buffer {

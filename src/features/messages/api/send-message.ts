@@ -1,54 +1,27 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import type { MessageView, ThreadMessages } from '@shared/schemas/messages';
-import { api, ApiError } from '@/lib/api-client';
+import { api } from '@/lib/api-client';
+import { postForm } from '@/lib/post-form';
 import { messageKeys } from './keys';
 import { mergeMessages } from './get-thread-messages';
 import { threadsQueryOptions } from './get-threads';
 
 export type SendMessageVars = { body: string; file?: File | null };
-type ErrorBody = { error?: { code?: string; message?: string; fields?: Record<string, string> } };
 
 function messagesUrl(threadId: string): string {
   return `/api/threads/${encodeURIComponent(threadId)}/messages`;
 }
 
-/**
- * A file goes as multipart through XMLHttpRequest, because fetch cannot report upload progress; its errors
- * become the same ApiError the api client throws. Text alone goes through the api client as JSON.
- */
+/** A file goes as multipart with upload progress; text alone goes through the api client as JSON. */
 function sendWithFile(threadId: string, body: string, file: File, onProgress: (fraction: number) => void): Promise<{ message: MessageView }> {
-  return new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open('POST', messagesUrl(threadId));
-    xhr.withCredentials = true;
-    xhr.setRequestHeader('Accept', 'application/json');
-    xhr.upload.onprogress = (e) => {
-      if (e.lengthComputable) onProgress(e.loaded / e.total);
-    };
-    xhr.onerror = () => reject(new ApiError({ status: 0, code: 'network', message: 'The message could not be sent. Check your connection and try again.' }));
-    xhr.onload = () => {
-      let parsed: unknown = null;
-      try {
-        parsed = xhr.responseText ? JSON.parse(xhr.responseText) : null;
-      } catch {
-        parsed = null;
-      }
-      if (xhr.status >= 200 && xhr.status < 300) return resolve(parsed as { message: MessageView });
-      const error = (parsed as ErrorBody | null)?.error;
-      reject(
-        new ApiError({
-          status: xhr.status,
-          code: error?.code ?? `http_${xhr.status}`,
-          message: error?.message ?? `The message could not be sent (${xhr.status}). Please try again.`,
-          fields: error?.fields,
-        }),
-      );
-    };
-    const form = new FormData();
-    form.append('body', body);
-    form.append('file', file);
-    xhr.send(form);
+  const form = new FormData();
+  form.append('body', body);
+  form.append('file', file);
+  return postForm(messagesUrl(threadId), form, {
+    onProgress,
+    networkMessage: 'The message could not be sent. Check your connection and try again.',
+    failureMessage: 'The message could not be sent',
   });
 }
 
