@@ -1,4 +1,5 @@
 import { sqliteTable, text, integer, real, index, primaryKey, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { BOOKING_STATUSES } from '../../../shared/schemas/bookings';
 import { users } from './users';
 
 export const briefs = sqliteTable(
@@ -113,18 +114,8 @@ export type BookingTerms = {
   packageName: string | null;
 };
 
-export const BOOKING_STATUSES = [
-  'awaiting_payment',
-  'funded',
-  'recording',
-  'delivered',
-  'changes_requested',
-  'accepted',
-  'paid_out',
-  'disputed',
-  'settled',
-  'cancelled',
-] as const;
+// The lifecycle words live with the API's booking shape; the column accepts exactly those.
+export { BOOKING_STATUSES };
 
 export const bookings = sqliteTable(
   'bookings',

@@ -1,5 +1,6 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
+import { songTitlesByBookingId } from '../../db/lookups';
 import { auditLog, bookings, disputes, users } from '../../db/schema';
 
 export type AuditRow = typeof auditLog.$inferSelect;
@@ -36,10 +37,7 @@ export function createAuditRepository(db: Db) {
       return new Map(rows.map((r) => [r.id, `${r.displayName} (${r.email})`]));
     },
     bookingTitles(ids: string[]): Map<string, string> {
-      const unique = [...new Set(ids)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: bookings.id, terms: bookings.terms }).from(bookings).where(inArray(bookings.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.terms.songTitle]));
+      return songTitlesByBookingId(db, ids);
     },
     disputeTitles(ids: string[]): Map<string, string> {
       const unique = [...new Set(ids)];

@@ -1,6 +1,7 @@
-import { desc, eq, inArray, or } from 'drizzle-orm';
+import { desc, eq, or } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { bookings, users } from '../../db/schema';
+import { displayNamesById } from '../../db/lookups';
+import { bookings } from '../../db/schema';
 
 export type BookingRow = typeof bookings.$inferSelect;
 export type BookingInsert = typeof bookings.$inferInsert;
@@ -22,10 +23,7 @@ export function createBookingsRepository(db: Db) {
       return db.select().from(bookings).orderBy(desc(bookings.createdAt)).all();
     },
     names(ids: string[]): Map<string, string> {
-      const unique = [...new Set(ids)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.displayName]));
+      return displayNamesById(db, ids);
     },
   };
 }

@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
+import { displayNamesById, songTitlesByBookingId } from '../../db/lookups';
 import { bookings, disputes, users } from '../../db/schema';
 import type { DisputeStatus } from '@shared/schemas/disputes';
 
@@ -80,16 +81,10 @@ export function createDisputesRepository(db: Db) {
       return tx.select().from(bookings).where(eq(bookings.id, id)).get();
     },
     names(ids: string[]): Map<string, string> {
-      const unique = [...new Set(ids)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.displayName]));
+      return displayNamesById(db, ids);
     },
     songTitles(bookingIds: string[]): Map<string, string> {
-      const unique = [...new Set(bookingIds)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: bookings.id, terms: bookings.terms }).from(bookings).where(inArray(bookings.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.terms.songTitle]));
+      return songTitlesByBookingId(db, bookingIds);
     },
   };
 }

@@ -1,5 +1,6 @@
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
+import { displayNamesById, songTitlesByBookingId } from '../../db/lookups';
 import { bookings, drummerProfiles, reviews, users } from '../../db/schema';
 import { roundRating, type ReviewSubjectRole } from '@shared/schemas/reviews';
 
@@ -47,16 +48,10 @@ export function createReviewsRepository(db: Db) {
       tx.update(drummerProfiles).set({ ratingAvg: roundRating(sum, count), ratingCount: count }).where(eq(drummerProfiles.userId, drummerId)).run();
     },
     names(ids: string[]): Map<string, string> {
-      const unique = [...new Set(ids)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.displayName]));
+      return displayNamesById(db, ids);
     },
     songTitles(bookingIds: string[]): Map<string, string> {
-      const unique = [...new Set(bookingIds)];
-      if (unique.length === 0) return new Map();
-      const rows = db.select({ id: bookings.id, terms: bookings.terms }).from(bookings).where(inArray(bookings.id, unique)).all();
-      return new Map(rows.map((r) => [r.id, r.terms.songTitle]));
+      return songTitlesByBookingId(db, bookingIds);
     },
   };
 }
