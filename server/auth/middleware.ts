@@ -73,10 +73,23 @@ export function optionalUser(res: Response): CurrentUser | null {
   return res.locals.user ?? null;
 }
 
+/**
+ * 401 for a signed-out caller. Mount it before validateBody/validateQuery (per route, or with `r.use(paths, …)`
+ * for a router's private paths) so the answer never depends on the input: a stranger learns nothing about a
+ * route's schema, and parsing is not spent on someone who may not call it at all.
+ */
 export const requireSignedIn: RequestHandler = (_req: Request, res: Response, next: NextFunction) => {
   requireUser(res);
   next();
 };
+
+/** 401 signed out, 403 without `permission`; like requireSignedIn, mounted before any input is parsed. */
+export function requirePermission(permission: Permission, message?: string): RequestHandler {
+  return (_req, res, next) => {
+    assertCan(requireUser(res), permission, message);
+    next();
+  };
+}
 
 export function assertCan(user: CurrentUser, permission: Permission, message?: string): void {
   if (!can(user.roles, permission)) throw forbidden(message);

@@ -18,6 +18,11 @@ import { reviewsRoutes } from './reviews/reviews.routes';
 /**
  * Each feature contributes one router factory. Add a line here when a feature gets routes;
  * the authorization-matrix test reads the resulting route table.
+ *
+ * Every router turns signed-out callers (401) and, on admin paths, non-admins (403) away before it parses
+ * any input: `r.use([...its private paths], requireSignedIn)` at the top of a router whose paths are all
+ * private, `requireSignedIn` as the first handler of each private route in a router that also serves the
+ * public. The matrix calls every route with input no schema accepts and fails on a 400 where 401/403 is due.
  */
 export type FeatureRoutes = (ctx: AppContext) => Router;
 

@@ -2,7 +2,8 @@ import type { Request, Response, NextFunction, RequestHandler } from 'express';
 import type { z } from 'zod';
 
 // Parsed values go to res.locals (Express 5's req.query is read-only); a ZodError reaches the
-// error handler, which answers 400 with field messages.
+// error handler, which answers 400 with field messages. On a route that needs an account these come
+// after requireSignedIn / requirePermission (server/auth/middleware.ts): who may call is answered first.
 export function validateBody<S extends z.ZodType>(schema: S): RequestHandler {
   return (req: Request, res: Response, next: NextFunction) => {
     res.locals.body = schema.parse(req.body ?? {});

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { AppContext } from '../../app';
-import { assertCan, requireSignedIn, requireUser } from '../../auth/middleware';
+import { requirePermission, requireUser } from '../../auth/middleware';
 import { bodyOf, queryOf, validateBody, validateQuery } from '../../http/validate';
 import { accountActionInputSchema, adminAccountsQuerySchema, adminBookingsQuerySchema, auditQuerySchema } from '@shared/schemas/admin';
 import { disputesQuerySchema, previewSettlementInputSchema, settleDisputeInputSchema } from '@shared/schemas/disputes';
@@ -22,10 +22,7 @@ export function adminRoutes(ctx: AppContext): Router {
   const audit = createAuditService({ db: ctx.db });
   const r = Router();
   // 401 signed out, 403 for everyone but admins, before any input is parsed (services check the exact permission).
-  r.use('/admin', requireSignedIn, (_req, res, next) => {
-    assertCan(requireUser(res), 'read:booking:any', 'The admin desk is for admins only');
-    next();
-  });
+  r.use('/admin', requirePermission('read:booking:any', 'The admin desk is for admins only'));
 
   r.get('/admin/disputes', validateQuery(disputesQuerySchema), (_req, res) => {
     res.json(disputes.list(requireUser(res), queryOf(res, disputesQuerySchema).status));

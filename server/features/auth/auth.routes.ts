@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { validateBody, bodyOf } from '../../http/validate';
-import { requireUser, setSessionCookie, clearSessionCookie } from '../../auth/middleware';
+import { requireSignedIn, requireUser, setSessionCookie, clearSessionCookie } from '../../auth/middleware';
 import type { AuthLucia } from '../../auth/lucia';
 import type { AuthService } from './auth.service';
 import { limiter, ipAndEmailKey, type Limits } from '../../http/rate-limit';
@@ -16,6 +16,8 @@ import {
 
 export function authRoutes(auth: AuthService, lucia: AuthLucia, limits: Limits): Router {
   const r = Router();
+  // The sign-in family works signed out; the account's own settings do not.
+  r.use('/account', requireSignedIn);
 
   r.post('/auth/signup', limiter('sign-up', limits.signup), validateBody(signupInputSchema), async (req, res) => {
     const { user, sessionId } = await auth.signup(bodyOf(res, signupInputSchema));
@@ -46,7 +48,8 @@ export function authRoutes(auth: AuthService, lucia: AuthLucia, limits: Limits):
     res.json({ user });
   });
 
-  r.post('/auth/resend-verification', limiter('mail', limits.passwordReset), (_req, res) => {
+  // Signed out is refused before the limiter, so a stranger cannot spend an account's mail budget.
+  r.post('/auth/resend-verification', requireSignedIn, limiter('mail', limits.passwordReset), (_req, res) => {
     auth.resendVerification(requireUser(res));
     res.status(202).json({ ok: true });
   });

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { AppContext } from '../../app';
-import { requireUser } from '../../auth/middleware';
+import { requireSignedIn, requireUser } from '../../auth/middleware';
 import { bodyOf, queryOf, validateBody, validateQuery } from '../../http/validate';
 import { receiveUpload } from '../../uploads/receive';
 import { briefInputSchema, GUIDE_MAX_BYTES, inviteInputSchema, openBriefsQuerySchema } from '@shared/schemas/briefs';
@@ -12,6 +12,7 @@ const idOf = (req: Request) => String(req.params.id);
 export function briefsRoutes(ctx: AppContext): Router {
   const service = createBriefsService(ctx);
   const r = Router();
+  r.use('/briefs', requireSignedIn);
 
   r.post('/briefs', validateBody(briefInputSchema), (_req, res) => {
     res.status(201).json({ brief: service.create(requireUser(res), bodyOf(res, briefInputSchema)) });

@@ -2,7 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import { join, resolve } from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import type { AppContext } from '../../app';
-import { requireUser } from '../../auth/middleware';
+import { requireSignedIn, requireUser } from '../../auth/middleware';
 import { AppError, notFound } from '../../http/app-error';
 import { bodyOf, validateBody } from '../../http/validate';
 import type { Storage } from '../../storage/storage';
@@ -69,6 +69,7 @@ export function deliveriesRoutes(ctx: AppContext): Router {
   registerAbandonedUploadSweep(ctx, service, { dir: uploads.dir, olderThanMs: settings.abandonedUploadMs, dropUpload });
 
   const r = Router();
+  r.use(['/bookings/:id/deliveries', '/deliveries'], requireSignedIn);
 
   // tus: creation (POST), offset (HEAD), bytes (PATCH), cancel (DELETE), capabilities (OPTIONS).
   r.route('/uploads{/:id}').post(uploads.handler).patch(uploads.handler).head(uploads.handler).delete(uploads.handler).options(uploads.handler);

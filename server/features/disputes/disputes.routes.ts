@@ -12,6 +12,7 @@ const idOf = (req: Request) => String(req.params.id);
 export function disputesRoutes(ctx: AppContext): Router {
   const service = disputesFor(ctx);
   const r = Router();
+  r.use('/bookings/:id/disputes', requireSignedIn);
   // On every start: settlements a previous run left between the processor call and the record.
   ctx.jobs.enqueue(FINISH_SETTLEMENT_JOB, { reason: 'startup' });
 
@@ -19,7 +20,7 @@ export function disputesRoutes(ctx: AppContext): Router {
     res.json(service.forBooking(requireUser(res), idOf(req)));
   });
 
-  r.post('/bookings/:id/disputes', requireSignedIn, validateBody(openDisputeInputSchema), (req, res) => {
+  r.post('/bookings/:id/disputes', validateBody(openDisputeInputSchema), (req, res) => {
     res.status(201).json({ dispute: service.open(requireUser(res), idOf(req), bodyOf(res, openDisputeInputSchema)) });
   });
 

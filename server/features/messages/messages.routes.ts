@@ -2,7 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import { ipKeyGenerator } from 'express-rate-limit';
 import type { AppContext } from '../../app';
-import { assertVerified, requireUser } from '../../auth/middleware';
+import { assertVerified, requireSignedIn, requireUser } from '../../auth/middleware';
 import { validateBody, validateQuery, bodyOf, queryOf } from '../../http/validate';
 import { limiter } from '../../http/rate-limit';
 import { AppError } from '../../http/app-error';
@@ -58,6 +58,7 @@ async function readMessageInput(req: Request, res: Response): Promise<{ body: st
 export function messagesRoutes(ctx: AppContext): Router {
   const service = createMessagesFeature(ctx);
   const r = Router();
+  r.use(['/briefs/:briefId/thread', '/bookings/:bookingId/thread', '/threads', '/messages', '/unread'], requireSignedIn);
   // Per account when signed in, so people behind one address do not share a budget.
   const sendLimit = limiter('message', ctx.limits.messages, (req, res) => res.locals.user?.id ?? ipKeyGenerator(req.ip ?? ''));
   // JSON bodies are checked here; multipart ones after the upload, in readMessageInput.

@@ -10,6 +10,7 @@ const idOf = (req: Request) => String(req.params.id);
 export function micPackagesRoutes(ctx: AppContext): Router {
   const packages = createMicPackagesService(ctx);
   const r = Router();
+  // Packages are public to read; every private route starts with requireSignedIn, before any input is parsed.
 
   r.get('/rooms/:id/packages', (req, res) => {
     res.json(packages.listForRoom(optionalUser(res), idOf(req)));
@@ -20,7 +21,7 @@ export function micPackagesRoutes(ctx: AppContext): Router {
   });
 
   // Before /mic-packages/:id so "mine" is never read as an id.
-  r.get('/mic-packages/mine', (_req, res) => {
+  r.get('/mic-packages/mine', requireSignedIn, (_req, res) => {
     res.json(packages.listMine(requireUser(res)));
   });
 
@@ -32,7 +33,7 @@ export function micPackagesRoutes(ctx: AppContext): Router {
     res.json({ package: packages.update(requireUser(res), idOf(req), bodyOf(res, micPackageUpdateInputSchema)) });
   });
 
-  r.delete('/mic-packages/:id', (req, res) => {
+  r.delete('/mic-packages/:id', requireSignedIn, (req, res) => {
     packages.archive(requireUser(res), idOf(req));
     res.status(204).end();
   });

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { AppContext } from '../../app';
-import { requireUser } from '../../auth/middleware';
+import { requireSignedIn, requireUser } from '../../auth/middleware';
 import { notFound } from '../../http/app-error';
 import { bodyOf, queryOf, validateBody, validateQuery } from '../../http/validate';
 import {
@@ -14,6 +14,7 @@ import {
 export function notificationsRoutes(ctx: AppContext): Router {
   const { notifications } = ctx;
   const r = Router();
+  r.use('/notifications', requireSignedIn);
 
   r.get('/notifications', validateQuery(listNotificationsQuerySchema), (_req, res) => {
     const { limit } = queryOf(res, listNotificationsQuerySchema);

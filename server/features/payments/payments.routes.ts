@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { AppContext } from '../../app';
-import { assertCan, requireUser } from '../../auth/middleware';
+import { assertCan, requirePermission, requireSignedIn, requireUser } from '../../auth/middleware';
 import { bodyOf, validateBody } from '../../http/validate';
 import { checkoutSyncInputSchema, refundInputSchema, releaseInputSchema, splitInputSchema } from '@shared/schemas/payments';
 import { paymentsRepo } from './payments.repository';
@@ -18,6 +18,9 @@ export function paymentsRoutes(ctx: AppContext): Router {
   const payouts = createPayoutAccounts(ctx);
   const ledger = createLedger(ctx.db);
   const r = Router();
+  // The webhook is signed by the processor, not a session: it stays outside these paths.
+  r.use(['/bookings', '/payouts'], requireSignedIn);
+  r.use('/admin/ledger', requirePermission('read:ledger:any'));
 
   ctx.jobs.register(REPAIR_JOB, async () => {
     await escrow.repairIntents();

@@ -10,12 +10,14 @@ import { createReelsRepository } from '../reels/reels.repository';
 export function profilesRoutes(ctx: AppContext): Router {
   const profiles = createProfilesService({ db: ctx.db, repo: createProfilesRepository(ctx.db), reels: createReelsRepository(ctx.db) });
   const r = Router();
+  // One's own profiles; the public pages are /drummers/:id and /engineers/:id.
+  r.use('/profile', requireSignedIn);
 
   r.get('/profile/drummer', (_req, res) => {
     res.json(profiles.getOwnDrummer(requireUser(res)));
   });
 
-  r.put('/profile/drummer', requireSignedIn, validateBody(drummerProfileInputSchema), (_req, res) => {
+  r.put('/profile/drummer', validateBody(drummerProfileInputSchema), (_req, res) => {
     res.json(profiles.saveOwnDrummer(requireUser(res), bodyOf(res, drummerProfileInputSchema)));
   });
 
@@ -28,7 +30,7 @@ export function profilesRoutes(ctx: AppContext): Router {
     res.json(profiles.getOwnEngineer(requireUser(res)));
   });
 
-  r.put('/profile/engineer', requireSignedIn, validateBody(engineerProfileInputSchema), (_req, res) => {
+  r.put('/profile/engineer', validateBody(engineerProfileInputSchema), (_req, res) => {
     res.json(profiles.saveOwnEngineer(requireUser(res), bodyOf(res, engineerProfileInputSchema)));
   });
 

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { AppContext } from '../../app';
-import { requireUser } from '../../auth/middleware';
+import { requireSignedIn, requireUser } from '../../auth/middleware';
 import { bodyOf, validateBody } from '../../http/validate';
 import { declineQuoteInputSchema, engineerResponseInputSchema, quoteInputSchema } from '@shared/schemas/quotes';
 import { createQuotesService } from './quotes.service';
@@ -10,6 +10,7 @@ const idOf = (req: Request) => String(req.params.id);
 export function quotesRoutes(ctx: AppContext): Router {
   const service = createQuotesService(ctx);
   const r = Router();
+  r.use(['/briefs/:id/quotes', '/quotes'], requireSignedIn);
 
   r.post('/briefs/:id/quotes', validateBody(quoteInputSchema), (req, res) => {
     res.status(201).json({ quote: service.create(requireUser(res), idOf(req), bodyOf(res, quoteInputSchema)) });

@@ -33,8 +33,9 @@ export function reelsRoutes(ctx: AppContext): Router {
     logger: ctx.logger,
   });
   const r = Router();
+  // Reels are public to play; every private route starts with requireSignedIn, before any input is parsed.
 
-  r.post('/reel-tracks', async (req, res) => {
+  r.post('/reel-tracks', requireSignedIn, async (req, res) => {
     const user = requireUser(res);
     // Refuse before a 40 MB body is read from someone who may not upload at all.
     reels.assertMayUpload(user);
@@ -54,8 +55,8 @@ export function reelsRoutes(ctx: AppContext): Router {
     res.json({ tracks: reels.reorder(requireUser(res), bodyOf(res, reelOrderInputSchema)) });
   });
 
-  r.delete('/reel-tracks/:id', async (req, res) => {
-    await reels.deleteTrack(requireUser(res), req.params.id);
+  r.delete('/reel-tracks/:id', requireSignedIn, async (req, res) => {
+    await reels.deleteTrack(requireUser(res), String(req.params.id));
     res.status(204).end();
   });
 

@@ -10,12 +10,14 @@ const idOf = (req: Request) => String(req.params.id);
 export function reviewsRoutes(ctx: AppContext): Router {
   const service = createReviewsService({ db: ctx.db, notifications: ctx.notifications });
   const r = Router();
+  // A booking's reviews are its parties'; a profile's are public.
+  r.use('/bookings/:id/reviews', requireSignedIn);
 
   r.get('/bookings/:id/reviews', (req, res) => {
     res.json(service.forBooking(requireUser(res), idOf(req)));
   });
 
-  r.post('/bookings/:id/reviews', requireSignedIn, validateBody(createReviewInputSchema), (req, res) => {
+  r.post('/bookings/:id/reviews', validateBody(createReviewInputSchema), (req, res) => {
     const user = requireUser(res);
     res.status(201).json({ review: service.create(user, idOf(req), bodyOf(res, createReviewInputSchema)) });
   });

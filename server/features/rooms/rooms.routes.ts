@@ -31,6 +31,7 @@ function sendPhoto(res: Response, stream: Readable): void {
 export function roomsRoutes(ctx: AppContext): Router {
   const rooms = createRoomsService(ctx);
   const r = Router();
+  // Rooms are public to read; every private route starts with requireSignedIn, before any input is parsed.
 
   // Public search (DESIGN.md's fixed `GET /api/rooms?q=…` → {items, total}).
   r.get('/rooms', validateQuery(roomSearchQuerySchema), (_req, res) => {
@@ -38,7 +39,7 @@ export function roomsRoutes(ctx: AppContext): Router {
   });
 
   // Before /rooms/:id so "mine" is never read as an id.
-  r.get('/rooms/mine', (_req, res) => {
+  r.get('/rooms/mine', requireSignedIn, (_req, res) => {
     res.json(rooms.listMine(requireUser(res)));
   });
 
@@ -54,7 +55,7 @@ export function roomsRoutes(ctx: AppContext): Router {
     res.json({ room: rooms.update(requireUser(res), idOf(req), bodyOf(res, roomUpdateInputSchema)) });
   });
 
-  r.delete('/rooms/:id', (req, res) => {
+  r.delete('/rooms/:id', requireSignedIn, (req, res) => {
     rooms.archive(requireUser(res), idOf(req));
     res.status(204).end();
   });
@@ -67,7 +68,7 @@ export function roomsRoutes(ctx: AppContext): Router {
     res.json({ blockedDates: rooms.setBlockedDates(requireUser(res), idOf(req), bodyOf(res, blockedDatesInputSchema)) });
   });
 
-  r.post('/rooms/:id/photos', async (req, res) => {
+  r.post('/rooms/:id/photos', requireSignedIn, async (req, res) => {
     const user = requireUser(res);
     // Refuse before a 10 MB body is read from someone who may not add a photo at all.
     rooms.assertMayAddPhoto(user, idOf(req));
@@ -80,7 +81,7 @@ export function roomsRoutes(ctx: AppContext): Router {
     res.status(201).json({ photo: await rooms.addPhoto(user, idOf(req), { tmpPath: file.tmpPath }, fields.data.caption) });
   });
 
-  r.delete('/rooms/:id/photos/:photoId', async (req, res) => {
+  r.delete('/rooms/:id/photos/:photoId', requireSignedIn, async (req, res) => {
     await rooms.deletePhoto(requireUser(res), idOf(req), String(req.params.photoId));
     res.status(204).end();
   });
