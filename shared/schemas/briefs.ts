@@ -39,6 +39,15 @@ export function todayIn(timeZone: string, now: Date = new Date()): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
 }
 
+/** A calendar date `days` later (or earlier, when negative); calendar arithmetic in UTC, so no clock change shifts it. */
+export function addDays(date: string, days: number): string {
+  const [y, m, d] = date.split('-').map(Number);
+  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
+}
+
+/** A new brief's suggested deadline: four weeks, room for quotes, a session and a round of changes. */
+export const DEFAULT_DEADLINE_DAYS = 28;
+
 /** "3:45" → 225; null when it is not minutes:seconds with seconds below 60. */
 export function parseMinutesSeconds(value: string): number | null {
   const m = /^\s*(\d{1,3}):([0-5]\d)\s*$/.exec(value);

@@ -12,6 +12,8 @@ import {
   STEM_MODES,
   TIME_SIGNATURES,
   todayIn,
+  addDays,
+  DEFAULT_DEADLINE_DAYS,
   type BriefValues,
   type BriefView,
 } from '@shared/schemas/briefs';
@@ -129,7 +131,7 @@ export function briefFormDefaults(brief: BriefView | null, timeZone: string): Br
       budgetMin: '',
       budgetMax: '',
       currency: 'USD',
-      deadline: todayIn(timeZone),
+      deadline: addDays(todayIn(timeZone), DEFAULT_DEADLINE_DAYS),
       needsRoom: false,
     };
   }
