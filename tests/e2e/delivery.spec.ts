@@ -5,20 +5,18 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { renderKit, writeWav } from '../../server/audio/testing/synth-wav';
-import { launchChromium, openSession, screenshot, type BrowserSession } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { useE2eWorld } from './helpers/world';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
 const NAMES = ['Kick In.wav', 'Snare Top.wav', 'Snare Bottom.wav'];
 
-let server: TestServer;
-let browser: Browser;
+const world = useE2eWorld();
+const { signedIn, openBooking } = world;
 let stemDir: string;
-const sessions: BrowserSession[] = [];
 
 beforeAll(async () => {
   stemDir = mkdtempSync(join(tmpdir(), 'kitlane-e2e-stems-'));
@@ -26,41 +24,9 @@ beforeAll(async () => {
   // longer than the part the review room decodes first, so the switch to the whole stems is exercised.
   const kit = renderKit({ sampleRate: 48_000, seconds: 24, tempo: 120, seed: 11 });
   for (const name of NAMES) await writeWav(join(stemDir, name), [kit.find((s) => s.name === name)!.samples], { sampleRate: 48_000, bits: 24 });
-  server = await startTestServer();
-  browser = await launchChromium();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-  rmSync(stemDir, { recursive: true, force: true });
 });
 
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function signedIn(email: string): Promise<BrowserSession> {
-  const s = await openSession(browser, 'desktop');
-  sessions.push(s);
-  await s.page.goto(`${server.url}/sign-in`);
-  await s.page.getByLabel('Email').fill(email);
-  await s.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  return s;
-}
-
-async function openBooking(page: Page): Promise<void> {
-  await page.goto(`${server.url}/bookings`);
-  await page.getByRole('link', { name: 'Quiet Harbour' }).first().click();
-  await page.waitForURL(/\/bookings\/[^/?]+$/);
-}
+afterAll(() => rmSync(stemDir, { recursive: true, force: true }));
 
 /** The row's percentage; a finished upload drops its progress line, so "uploaded" reads as 100. */
 async function percentOf(page: Page, name: string): Promise<number> {
@@ -72,7 +38,7 @@ async function percentOf(page: Page, name: string): Promise<number> {
 }
 
 async function uploadAndSubmit(page: Page, version: number, opts: { interrupt: boolean }): Promise<void> {
-  await openBooking(page);
+  await openBooking(page, 'Quiet Harbour');
   await page.getByRole('button', { name: `Start delivery v${version}` }).click();
   await page.waitForURL(/\/deliveries\/[^/?]+$/);
   const cdp = opts.interrupt ? await page.context().newCDPSession(page) : null;
@@ -88,7 +54,7 @@ async function uploadAndSubmit(page: Page, version: number, opts: { interrupt: b
     expect(paused).toBeLessThan(100);
     await expect.poll(() => page.locator('[data-file-name="Snare Bottom.wav"]').getByText('Paused').count()).toBe(1);
     await screenshot(page, 'delivery-upload-paused-desktop');
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the paused upload');
     await cdp?.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
     await page.getByRole('button', { name: 'Resume Snare Bottom.wav' }).click();
     // Resumed from the server's offset, not from zero.
@@ -103,7 +69,7 @@ async function uploadAndSubmit(page: Page, version: number, opts: { interrupt: b
 }
 
 async function openReviewRoom(page: Page, version: number): Promise<number> {
-  await openBooking(page);
+  await openBooking(page, 'Quiet Harbour');
   await page.getByRole('link', { name: `Open the review room v${version}` }).click();
   await page.waitForURL(/\/deliveries\/[^/?]+$/);
   const play = page.getByTestId('transport-play');
@@ -141,11 +107,11 @@ describe('delivering stems and reviewing them', () => {
     await page.getByLabel(/^Note at/).fill('The snare is a touch late in this fill');
     await page.getByRole('button', { name: 'Save note' }).click();
     await expect.poll(() => page.getByRole('list', { name: 'Notes on the timeline' }).getByText('The snare is a touch late in this fill').count()).toBe(1);
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the review room');
     await screenshot(page, 'delivery-review-room-desktop');
     await page.getByRole('button', { name: /^Request changes \(1 note\)/ }).click();
     await expect.poll(() => page.getByText('Changes were asked for on this version.').count(), { timeout: 10_000 }).toBe(1);
-    const mail = await server.waitForMail('juno@kitlane.test', /Changes asked for/);
+    const mail = await world.server.waitForMail('juno@kitlane.test', /Changes asked for/);
     expect(mail.text).toContain('The snare is a touch late in this fill');
   }, 120_000);
 

@@ -1,61 +1,21 @@
 // Issue 4, browser part: the admin splits the demo's open dispute 70/30 on the admin desk after a
 // confirmation step with the exact amounts; the songwriter and the drummer then see the decision and their
 // receipts on the booking page. Demo accounts from the seed; the desk and the booking page pass axe.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import { describe, expect, it } from 'vitest';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { useE2eWorld } from './helpers/world';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
-
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function signedIn(email: string): Promise<BrowserSession> {
-  const s = await openSession(browser, 'desktop');
-  sessions.push(s);
-  await s.page.goto(`${server.url}/sign-in`);
-  await s.page.getByLabel('Email').fill(email);
-  await s.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  return s;
-}
-
-async function openBooking(s: BrowserSession, songTitle: string) {
-  await s.page.goto(`${server.url}/bookings`);
-  await s.page.getByRole('link', { name: songTitle }).first().click();
-  await s.page.waitForURL(/\/bookings\/[^/]+$/);
-}
+const world = useE2eWorld();
+const { signedIn, openBooking } = world;
 
 describe('settling a dispute in the browser', () => {
   it('splits the open dispute 70/30; both sides then see the decision and their receipts', async () => {
     const admin = await signedIn('admin@kitlane.test');
-    await admin.page.goto(`${server.url}/admin`);
+    await admin.page.goto(world.url('/admin'));
     const queue = admin.page.getByRole('region', { name: 'Open disputes' }).or(admin.page.locator('section[aria-labelledby="open-disputes"]'));
     await expect.poll(() => queue.getByTestId('dispute-row').count(), { timeout: 10_000 }).toBe(1);
-    expect(await seriousAxeViolations(admin.page)).toEqual([]);
+    await expectAxeClean(admin.page, 'the dispute queue');
     await screenshot(admin.page, 'admin-dispute-queue-desktop');
 
     await queue.getByRole('link', { name: 'Lamplight Verse' }).click();
@@ -64,7 +24,7 @@ describe('settling a dispute in the browser', () => {
     expect(await admin.page.getByText('No delivery yet').count()).toBe(1);
     // 220.00 agreed (the seed's fee) is held in escrow.
     expect(await admin.page.getByTestId('escrow-held').innerText()).toBe('$220.00');
-    expect(await seriousAxeViolations(admin.page)).toEqual([]);
+    await expectAxeClean(admin.page, 'the dispute case');
     await screenshot(admin.page, 'admin-dispute-case-desktop');
 
     const form = admin.page.getByRole('form', { name: 'Settle the dispute' });
@@ -79,7 +39,7 @@ describe('settling a dispute in the browser', () => {
     await expect.poll(() => preview.count(), { timeout: 10_000 }).toBe(1);
     expect(await admin.page.getByTestId('preview-songwriter').innerText()).toBe('$154.00');
     expect(await admin.page.getByTestId('preview-drummer').innerText()).toBe('$66.00 − commission $6.60 = $59.40');
-    expect(await seriousAxeViolations(admin.page)).toEqual([]);
+    await expectAxeClean(admin.page, 'the settlement preview');
     await screenshot(admin.page, 'admin-dispute-confirm-desktop');
     await admin.page.getByRole('button', { name: 'Confirm and settle' }).click();
     await expect.poll(() => admin.page.getByTestId('dispute-decision').count(), { timeout: 15_000 }).toBe(1);
@@ -91,14 +51,14 @@ describe('settling a dispute in the browser', () => {
       ['kofi@kitlane.test', /Transferred to the payee/],
     ] as const) {
       const party = await signedIn(email);
-      await openBooking(party, 'Lamplight Verse');
+      await openBooking(party.page, 'Lamplight Verse');
       const decision = party.page.getByTestId('dispute-decision');
       await expect.poll(() => decision.count(), { timeout: 10_000 }).toBe(1);
       expect(await party.page.getByTestId('decision-songwriter').innerText()).toBe('$154.00');
       expect(await party.page.getByTestId('decision-payees').innerText()).toContain('$66.00');
       const receipts = party.page.locator('section[aria-labelledby="receipts-title"]');
       await expect.poll(() => receipts.getByText(receipt).count(), { timeout: 10_000 }).toBeGreaterThan(0);
-      expect(await seriousAxeViolations(party.page)).toEqual([]);
+      await expectAxeClean(party.page, 'the settled booking page');
       await screenshot(party.page, `booking-dispute-settled-${email.split('@')[0]}-desktop`);
     }
   }, 120_000);

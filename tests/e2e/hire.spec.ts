@@ -1,61 +1,18 @@
 // Issue 3, hiring part: a songwriter writes and publishes a brief with a guide track; a drummer finds it in
 // open briefs and quotes; the songwriter compares and accepts; the booking page shows awaiting payment with
 // the agreed total. Each page passes an axe check and leaves a screenshot.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { formatMoney } from '@shared/money';
-import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { eventually, h1, useE2eWorld } from './helpers/world';
 import { daysFromToday, demoGuide } from '../api/helpers/hire';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
 const SONGWRITER = 'mara@kitlane.test';
 const DRUMMER = 'sada@kitlane.test';
 
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
-  const s = await openSession(browser, viewport);
-  sessions.push(s);
-  return s;
-}
-
-function eventually<T>(read: () => Promise<T> | T, timeout = 15_000) {
-  return expect.poll(read, { timeout, interval: 200 });
-}
-
-async function signIn(page: Page, email: string): Promise<void> {
-  const res = await page.request.post(`${server.url}/api/auth/login`, { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-}
-
-async function expectAxeClean(page: Page, name: string): Promise<void> {
-  expect(await seriousAxeViolations(page), `axe on ${name}`).toEqual([]);
-}
-
-const h1 = (page: Page) => page.getByRole('heading', { level: 1 }).innerText();
+const world = useE2eWorld();
+const { session, signIn } = world;
 
 describe('hiring a drummer', () => {
   it('goes from a published brief with a guide track to a booking awaiting payment', async () => {
@@ -64,7 +21,7 @@ describe('hiring a drummer', () => {
     await signIn(songwriter.page, SONGWRITER);
 
     // 1. The songwriter writes a draft.
-    await songwriter.page.goto(`${server.url}/briefs/new`);
+    await songwriter.page.goto(world.url('/briefs/new'));
     await eventually(() => h1(songwriter.page)).toBe('New brief');
     const form = songwriter.page;
     await form.getByLabel('Song title').fill(title);
@@ -103,7 +60,7 @@ describe('hiring a drummer', () => {
     // 4. A drummer finds it in open briefs with a style filter (kept in the URL) and opens it.
     const drummer = await session('desktop');
     await signIn(drummer.page, DRUMMER);
-    await drummer.page.goto(`${server.url}/briefs`);
+    await drummer.page.goto(world.url('/briefs'));
     await eventually(() => h1(drummer.page)).toBe('Open briefs');
     await drummer.page.getByLabel('Style').selectOption('funk');
     await drummer.page.getByRole('button', { name: 'Filter' }).click();
@@ -132,7 +89,7 @@ describe('hiring a drummer', () => {
     await expectAxeClean(drummer.page, 'the drummer’s quote page');
 
     // 6. The songwriter compares the quotes and accepts.
-    await songwriter.page.goto(`${server.url}/briefs/${briefId}/quotes`);
+    await songwriter.page.goto(world.url(`/briefs/${briefId}/quotes`));
     await eventually(() => h1(songwriter.page)).toBe(`Quotes for ${title}`);
     await eventually(() => songwriter.page.getByTestId('quote-total').allInnerTexts()).toEqual([total]);
     await expectAxeClean(songwriter.page, 'the quote comparison');
@@ -148,7 +105,7 @@ describe('hiring a drummer', () => {
     await screenshot(songwriter.page, 'hire-booking-desktop');
 
     // The drummer is told, and the booking is theirs to see too.
-    const mail = await server.waitForMail(DRUMMER, new RegExp(`quote for “${title}” was accepted`));
+    const mail = await world.server.waitForMail(DRUMMER, new RegExp(`quote for “${title}” was accepted`));
     const bookingLink = mail.links.find((l) => l.includes('/bookings/'));
     expect(bookingLink).toBeTruthy();
     await drummer.page.goto(bookingLink!);
@@ -158,7 +115,7 @@ describe('hiring a drummer', () => {
   it('shows the comparison readably on a phone', async () => {
     const songwriter = await session('mobile');
     await signIn(songwriter.page, 'teo@kitlane.test');
-    await songwriter.page.goto(`${server.url}/briefs/mine`);
+    await songwriter.page.goto(world.url('/briefs/mine'));
     await eventually(() => h1(songwriter.page)).toBe('My briefs');
     await expectAxeClean(songwriter.page, 'my briefs');
     await screenshot(songwriter.page, 'hire-my-briefs-mobile');

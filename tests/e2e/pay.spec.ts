@@ -1,47 +1,14 @@
 // Issue 4, browser part: a songwriter pays on the payment fake's hosted page (a declined card first shows
 // its reason and leaves the booking payable, then the success card funds it); a payee onboards from the
 // account page. Demo accounts from the seed; the money panel passes an axe check.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { useE2eWorld } from './helpers/world';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
-
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function signedIn(email: string): Promise<BrowserSession> {
-  const s = await openSession(browser, 'desktop');
-  sessions.push(s);
-  await s.page.goto(`${server.url}/sign-in`);
-  await s.page.getByLabel('Email').fill(email);
-  await s.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  return s;
-}
+const world = useE2eWorld();
+const { signedIn } = world;
 
 function moneyPanel(page: Page) {
   return page.getByRole('region', { name: 'Payment' });
@@ -54,14 +21,14 @@ describe('paying into escrow in the browser', () => {
     problems.ignoreConsoleError(/status of 402/);
     // The fake's pages have no icon; Chromium asks for one anyway.
     problems.ignoreConsoleError(/favicon\.ico/);
-    await page.goto(`${server.url}/bookings`);
+    await page.goto(world.url('/bookings'));
     await page.getByRole('link', { name: 'Low Tide Motel' }).click();
     await page.waitForURL(/\/bookings\/[^/?]+$/);
     const bookingPage = page.url();
     const panel = moneyPanel(page);
     await expect.poll(() => panel.getByText('Awaiting payment').count(), { timeout: 10_000 }).toBeGreaterThan(0);
     await expect.poll(() => panel.getByText(/not a licensed escrow service/).count()).toBe(1);
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the booking awaiting payment');
     await screenshot(page, 'booking-awaiting-payment-desktop');
 
     await panel.getByRole('button', { name: /^Pay / }).click();
@@ -83,16 +50,16 @@ describe('paying into escrow in the browser', () => {
     await page.waitForURL(/\/bookings\/[^?]+\?checkout=success/);
     await expect.poll(() => moneyPanel(page).getByText('Funded: money held').count(), { timeout: 15_000 }).toBe(1);
     await expect.poll(() => moneyPanel(page).getByRole('heading', { name: 'Receipts' }).count()).toBe(1);
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the funded booking');
     await screenshot(page, 'booking-funded-desktop');
   });
 
   it('lets a payee set up payouts on the processor’s onboarding page', async () => {
     const { page } = await signedIn('pim@kitlane.test');
-    await page.goto(`${server.url}/account#payouts`);
+    await page.goto(world.url('/account#payouts'));
     const section = page.getByRole('region', { name: 'Payouts' });
     await expect.poll(() => section.getByText('Not set up').count(), { timeout: 10_000 }).toBe(1);
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the payouts section');
     await screenshot(page, 'account-payouts-not-set-up-desktop');
     await section.getByRole('button', { name: 'Set up payouts' }).click();
     await page.waitForURL(/\/onboarding\//);

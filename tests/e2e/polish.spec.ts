@@ -2,78 +2,29 @@
 // brief owner invites drummers from a picker, the quote form names a room's mic package instead of an
 // account id, and "Message" buttons sit on the brief, compare and booking pages. Each page passes axe and
 // leaves a screenshot (the filter and the picker also on a 390 px phone).
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
-import { briefBody } from '../api/helpers/hire';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { eventually, useE2eWorld } from './helpers/world';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
 const SONGWRITER = 'ines@kitlane.test';
 const DRUMMER = 'pim@kitlane.test';
 
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
-  const s = await openSession(browser, viewport);
-  sessions.push(s);
-  return s;
-}
-
-function eventually<T>(read: () => Promise<T> | T, timeout = 15_000) {
-  return expect.poll(read, { timeout, interval: 200 });
-}
-
-async function signIn(page: Page, email: string): Promise<void> {
-  const res = await page.request.post(`${server.url}/api/auth/login`, { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-}
-
-async function expectAxeClean(page: Page, name: string): Promise<void> {
-  expect(await seriousAxeViolations(page), `axe on ${name}`).toEqual([]);
-}
+const world = useE2eWorld();
+const { session, signIn } = world;
 
 type PackageChoice = { roomName: string; packageName: string; currency: string };
 
 /** A room with an offered mic package from the demo seed; the brief is priced in its currency so it can be named. */
 async function demoPackage(page: Page): Promise<PackageChoice> {
-  const rooms = (await (await page.request.get(`${server.url}/api/rooms`)).json()) as { items: { id: string; name: string }[] };
+  const rooms = (await (await page.request.get(world.url('/api/rooms'))).json()) as { items: { id: string; name: string }[] };
   for (const room of rooms.items) {
-    const list = (await (await page.request.get(`${server.url}/api/rooms/${room.id}/packages`)).json()) as { items: { name: string; currency: string; archived: boolean }[] };
+    const list = (await (await page.request.get(world.url(`/api/rooms/${room.id}/packages`))).json()) as { items: { name: string; currency: string; archived: boolean }[] };
     const offered = list.items.find((p) => !p.archived);
     if (offered) return { roomName: room.name, packageName: offered.name, currency: offered.currency };
   }
   throw new Error('The demo seed has no room with a mic package');
-}
-
-async function publishBrief(page: Page, overrides: Record<string, unknown>): Promise<string> {
-  const created = await page.request.post(`${server.url}/api/briefs`, { data: briefBody(overrides) });
-  expect(created.status()).toBe(201);
-  const id = ((await created.json()) as { brief: { id: string } }).brief.id;
-  expect((await page.request.post(`${server.url}/api/briefs/${id}/publish`)).status()).toBe(200);
-  return id;
 }
 
 describe('marketplace polish', () => {
@@ -86,11 +37,11 @@ describe('marketplace polish', () => {
     const songwriter = await session('mobile');
     await signIn(songwriter.page, SONGWRITER);
     pkg = await demoPackage(songwriter.page);
-    briefId = await publishBrief(songwriter.page, { songTitle: title, currency: pkg.currency, budgetMinMinor: 30000, budgetMaxMinor: 45050 });
-    const me = (await (await songwriter.page.request.get(`${server.url}/api/drummers?q=Pim`)).json()) as { items: { displayName: string }[] };
+    briefId = await world.publishBrief(songwriter.page, { songTitle: title, currency: pkg.currency, budgetMinMinor: 30000, budgetMaxMinor: 45050 });
+    const me = (await (await songwriter.page.request.get(world.url('/api/drummers?q=Pim'))).json()) as { items: { displayName: string }[] };
     drummerName = me.items[0].displayName;
 
-    await songwriter.page.goto(`${server.url}/briefs/${briefId}`);
+    await songwriter.page.goto(world.url(`/briefs/${briefId}`));
     const picker = songwriter.page.getByRole('region', { name: 'Invite drummers' });
     await eventually(() => picker.getByText('Nobody invited yet').count()).toBe(1);
     await picker.getByRole('searchbox', { name: 'Find a drummer' }).fill(drummerName);
@@ -105,7 +56,7 @@ describe('marketplace polish', () => {
   it('filters open briefs by a budget typed in major units, and says so when the amount is unreadable', async () => {
     const drummer = await session('mobile');
     await signIn(drummer.page, DRUMMER);
-    await drummer.page.goto(`${server.url}/briefs`);
+    await drummer.page.goto(world.url('/briefs'));
     const filters = drummer.page.getByRole('form', { name: 'Filter open briefs' });
     await filters.getByLabel('Currency').selectOption(pkg.currency);
     await filters.getByLabel('Budget reaches at least').fill('12.345');
@@ -130,7 +81,7 @@ describe('marketplace polish', () => {
   it('lets a drummer quote with a room’s mic package picked from a list, and message the songwriter', async () => {
     const drummer = await session('desktop');
     await signIn(drummer.page, DRUMMER);
-    await drummer.page.goto(`${server.url}/briefs/${briefId}`);
+    await drummer.page.goto(world.url(`/briefs/${briefId}`));
     await eventually(() => drummer.page.getByRole('heading', { name: 'Send a quote' }).count()).toBe(1);
     expect(await drummer.page.getByRole('button', { name: /^Message / }).count()).toBe(1);
 
@@ -150,7 +101,7 @@ describe('marketplace polish', () => {
   it('puts a message button on each quote in the comparison that opens the conversation with that drummer', async () => {
     const songwriter = await session('desktop');
     await signIn(songwriter.page, SONGWRITER);
-    await songwriter.page.goto(`${server.url}/briefs/${briefId}/quotes`);
+    await songwriter.page.goto(world.url(`/briefs/${briefId}/quotes`));
     const message = songwriter.page.getByRole('button', { name: `Message ${drummerName}` });
     await eventually(() => message.count()).toBe(1);
     await expectAxeClean(songwriter.page, 'compare quotes with message buttons');
@@ -162,9 +113,9 @@ describe('marketplace polish', () => {
   it('opens the booking’s conversation from the booking page, for a party to the booking', async () => {
     const songwriter = await session('mobile');
     await signIn(songwriter.page, 'mara@kitlane.test');
-    const list = (await (await songwriter.page.request.get(`${server.url}/api/bookings`)).json()) as { items: { id: string }[] };
+    const list = (await (await songwriter.page.request.get(world.url('/api/bookings'))).json()) as { items: { id: string }[] };
     expect(list.items.length).toBeGreaterThan(0);
-    await songwriter.page.goto(`${server.url}/bookings/${list.items[0].id}`);
+    await songwriter.page.goto(world.url(`/bookings/${list.items[0].id}`));
     const message = songwriter.page.getByRole('button', { name: 'Message about this booking' });
     await eventually(() => message.count()).toBe(1);
     await screenshot(songwriter.page, 'polish-booking-message-mobile');

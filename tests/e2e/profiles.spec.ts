@@ -1,63 +1,30 @@
 // Issue 3, browser part A: a drummer edits the profile and uploads a reel track (progress visible), the
 // public profile plays it from precomputed peaks; a visitor searches with filters, reloads the URL and sees
 // the same results, and a search without matches offers ways out. Axe on every page.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import type { Page } from 'playwright-core';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { eventually, h1, useE2eWorld } from './helpers/world';
 import { synthReelWav } from '../../server/features/reels/reel-synth';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
 const DRUMMER = 'juno@kitlane.test';
 
-let server: TestServer;
-let browser: Browser;
+const world = useE2eWorld();
+const { session, signIn } = world;
 let dir = '';
-const sessions: BrowserSession[] = [];
 
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
+beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'kitlane-e2e-reel-'));
 });
 
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+afterAll(() => {
   if (dir) rmSync(dir, { recursive: true, force: true });
 });
 
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
-  const s = await openSession(browser, viewport);
-  sessions.push(s);
-  return s;
-}
-
-const eventually = <T>(read: () => Promise<T> | T, timeout = 15_000) => expect.poll(read, { timeout, interval: 200 });
-
-async function signIn(page: Page, email: string): Promise<void> {
-  const res = await page.request.post(`${server.url}/api/auth/login`, { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-}
-
-async function expectAxeClean(page: Page, name: string): Promise<void> {
-  expect(await seriousAxeViolations(page), `axe on ${name}`).toEqual([]);
-}
-
-const h1 = (page: Page) => page.getByRole('heading', { level: 1 }).innerText();
 const resultNames = (page: Page) => page.getByTestId('drummer-results').getByRole('heading', { level: 2 }).allInnerTexts();
 
 describe('drummer profiles, reels and search in the browser', () => {
@@ -67,7 +34,7 @@ describe('drummer profiles, reels and search in the browser', () => {
   it('edits the profile and uploads a reel track with visible progress', async () => {
     const { page, context } = await session('desktop');
     await signIn(page, DRUMMER);
-    await page.goto(`${server.url}/profile`);
+    await page.goto(world.url('/profile'));
     await eventually(() => h1(page)).toBe('My profile');
     const form = page.getByRole('form', { name: 'Drummer profile' });
     await form.getByLabel('Headline', { exact: true }).fill(headline);
@@ -125,7 +92,7 @@ describe('drummer profiles, reels and search in the browser', () => {
 
   it('searches with filters, keeps them in the URL and shows the same results after a reload', async () => {
     const { page } = await session('desktop');
-    await page.goto(`${server.url}/drummers`);
+    await page.goto(world.url('/drummers'));
     await eventually(() => h1(page)).toBe('Find drummers');
     const form = page.getByRole('search', { name: 'Find drummers' });
     await form.getByLabel('Words', { exact: true }).fill('pocket');
@@ -148,7 +115,7 @@ describe('drummer profiles, reels and search in the browser', () => {
 
   it('explains an empty search and lets the visitor drop one filter at a time', async () => {
     const { page } = await session('mobile');
-    await page.goto(`${server.url}/drummers?q=pocket&maxRate=10&currency=USD`);
+    await page.goto(world.url('/drummers?q=pocket&maxRate=10&currency=USD'));
     await eventually(() => page.getByText(/No drummers match “pocket” with rate ≤ \$10\.00/).count()).toBe(1);
     await expectAxeClean(page, 'drummer search without results');
     await screenshot(page, 'profiles-search-empty-mobile');

@@ -1,61 +1,18 @@
 // Issue 6, browser part: an engineer lists a room with its surfaces and sees the acoustics plots, builds a
 // 12-channel mic package from a template (reordered by keys, with a 3:1 warning and the channel-count field
 // error), and a songwriter sees the room and the package on a quote that names it.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
-import { briefBody, quoteBody } from '../api/helpers/hire';
+import { describe, expect, it } from 'vitest';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { eventually, h1, useE2eWorld } from './helpers/world';
+import { quoteBody } from '../api/helpers/hire';
 
-const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass';
 const ENGINEER = 'bea@kitlane.test'; // USD, America/New_York
 const SONGWRITER = 'teo@kitlane.test'; // USD
 const DRUMMER = 'odell@kitlane.test';
 
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
-  const s = await openSession(browser, viewport);
-  sessions.push(s);
-  return s;
-}
-
-function eventually<T>(read: () => Promise<T> | T, timeout = 15_000) {
-  return expect.poll(read, { timeout, interval: 200 });
-}
-
-async function signIn(page: Page, email: string): Promise<void> {
-  const res = await page.request.post(`${server.url}/api/auth/login`, { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-}
-
-async function expectAxeClean(page: Page, name: string): Promise<void> {
-  expect(await seriousAxeViolations(page), `axe on ${name}`).toEqual([]);
-}
-
-const h1 = (page: Page) => page.getByRole('heading', { level: 1 }).innerText();
+const world = useE2eWorld();
+const { session, signIn } = world;
 
 describe('rooms and mic packages in the browser', () => {
   let roomUrl = '';
@@ -65,7 +22,7 @@ describe('rooms and mic packages in the browser', () => {
   it('lists a room with surfaces and shows the RT60 and mode plots with the reading', async () => {
     const { page } = await session('desktop');
     await signIn(page, ENGINEER);
-    await page.goto(`${server.url}/rooms/new`);
+    await page.goto(world.url('/rooms/new'));
     await eventually(() => h1(page)).toBe('List a room');
     await page.getByLabel('Name', { exact: true }).fill(roomName);
     await page.getByLabel('Town', { exact: true }).fill('Vessary');
@@ -143,21 +100,19 @@ describe('rooms and mic packages in the browser', () => {
     const engineer = await session('desktop');
     await signIn(engineer.page, ENGINEER);
     const roomId = roomUrl.split('/').pop()!;
-    const packages = await (await engineer.page.request.get(`${server.url}/api/rooms/${roomId}/packages`)).json();
+    const packages = await (await engineer.page.request.get(world.url(`/api/rooms/${roomId}/packages`))).json();
     const packageId = packages.items.find((p: { name: string }) => p.name === packageName).id as string;
 
     const songwriter = await session('desktop');
     await signIn(songwriter.page, SONGWRITER);
-    const created = await songwriter.page.request.post(`${server.url}/api/briefs`, { data: briefBody({ songTitle: `Room test ${Date.now()}`, currency: 'USD' }) });
-    const briefId = (await created.json()).brief.id as string;
-    expect((await songwriter.page.request.post(`${server.url}/api/briefs/${briefId}/publish`, { data: {} })).status()).toBe(200);
+    const briefId = await world.publishBrief(songwriter.page, { songTitle: `Room test ${Date.now()}`, currency: 'USD' });
 
     const drummer = await session('desktop');
     await signIn(drummer.page, DRUMMER);
-    const quote = await drummer.page.request.post(`${server.url}/api/briefs/${briefId}/quotes`, { data: quoteBody({ packageId }) });
+    const quote = await drummer.page.request.post(world.url(`/api/briefs/${briefId}/quotes`), { data: quoteBody({ packageId }) });
     expect(quote.status()).toBe(201);
 
-    await songwriter.page.goto(`${server.url}/briefs/${briefId}/quotes`);
+    await songwriter.page.goto(world.url(`/briefs/${briefId}/quotes`));
     const summary = songwriter.page.getByTestId('quote-package');
     await eventually(() => summary.innerText()).toContain(roomName);
     expect(await summary.innerText()).toContain(packageName);

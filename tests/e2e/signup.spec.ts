@@ -1,46 +1,17 @@
 // Issue 2, browser part: a new person signs up in Chromium, confirms the address from the mail catcher,
 // sees the navigation of their roles, signs out and in again; the public pages pass an axe check.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { gzipSync } from 'node:zlib';
-import type { Browser, Page } from 'playwright-core';
-import { launchChromium, openSession, screenshot, type BrowserSession, type ViewportName } from './helpers/browser';
-import { startTestServer, type TestServer } from './helpers/server';
-import { seriousAxeViolations } from './helpers/a11y';
+import type { Page } from 'playwright-core';
+import { screenshot } from './helpers/browser';
+import { expectAxeClean } from './helpers/a11y';
+import { DEMO_PASSWORD, eventually as eventuallyWithin, useE2eWorld } from './helpers/world';
 
-let server: TestServer;
-let browser: Browser;
-const sessions: BrowserSession[] = [];
+const world = useE2eWorld();
+const { session } = world;
 
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchChromium();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  // Every page of the test must have stayed free of console and page errors.
-  const open = sessions.splice(0);
-  try {
-    for (const s of open) s.problems.assertClean();
-  } finally {
-    await Promise.all(open.map((s) => s.close()));
-  }
-});
-
-async function session(viewport: ViewportName = 'desktop'): Promise<BrowserSession> {
-  const s = await openSession(browser, viewport);
-  sessions.push(s);
-  return s;
-}
-
-/** Polls until the value matches; the default second of expect.poll is too short on a busy test machine. */
-function eventually<T>(read: () => Promise<T> | T) {
-  return expect.poll(read, { timeout: 10_000, interval: 100 });
-}
+/** These pages answer quickly: poll more often, and give up sooner than the flows with uploads and mail. */
+const eventually = <T>(read: () => Promise<T> | T) => eventuallyWithin(read, 10_000, 100);
 
 function mainNav(page: Page) {
   return page.getByRole('navigation', { name: 'Main' });
@@ -60,7 +31,7 @@ describe('signing up in the browser', () => {
     const email = `new-drummer-${Date.now()}@kitlane.test`;
     const password = 'brush-swell-ghost-notes';
 
-    await page.goto(`${server.url}/sign-up`);
+    await page.goto(world.url('/sign-up'));
     await eventually(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Join Kitlane');
 
     // The client-side check speaks first, beside each field, without asking the server.
@@ -82,12 +53,12 @@ describe('signing up in the browser', () => {
     await screenshot(page, 'check-inbox-desktop');
 
     // Open the mail in the catcher's web view and follow the link in it, as a person would.
-    const mail = await server.waitForMail(email, /Confirm your email/);
-    const verifyLink = mail.links.find((link) => link.startsWith(`${server.url}/verify-email?token=`));
+    const mail = await world.server.waitForMail(email, /Confirm your email/);
+    const verifyLink = mail.links.find((link) => link.startsWith(world.url('/verify-email?token=')));
     expect(verifyLink, 'the mail links to this server').toBeTruthy();
     // The catcher's own pages have no icon, so Chromium's automatic /favicon.ico request there gets a 404.
-    problems.ignoreConsoleError(new RegExp(`404.*\\(${server.mailWebUrl.replace(/[.]/g, '\\.')}/favicon\\.ico\\)`));
-    await page.goto(server.mailWebUrl);
+    problems.ignoreConsoleError(new RegExp(`404.*\\(${world.server.mailWebUrl.replace(/[.]/g, '\\.')}/favicon\\.ico\\)`));
+    await page.goto(world.server.mailWebUrl);
     await page.getByRole('link', { name: 'Confirm your email for Kitlane' }).first().click();
     await page.getByRole('link', { name: verifyLink! }).first().click();
 
@@ -95,7 +66,7 @@ describe('signing up in the browser', () => {
     await eventually(() => page.getByText('Your email is confirmed').count()).toBe(1);
     await screenshot(page, 'verify-email-desktop');
     // It goes on by itself, signed in.
-    await page.waitForURL(`${server.url}/`, { timeout: 10_000 });
+    await page.waitForURL(world.url('/'), { timeout: 10_000 });
 
     await eventually(() => navLabels(page)).toEqual(['Open briefs', 'My profile', 'My quotes', 'My rooms', 'Messages', 'Bookings']);
     expect(await page.getByRole('button', { name: /Rim Shot Rosa.*account menu/ }).count()).toBe(1);
@@ -105,13 +76,13 @@ describe('signing up in the browser', () => {
     expect(await bell.count()).toBe(1);
     await screenshot(page, 'home-signed-in-desktop');
 
-    await page.goto(`${server.url}/account`);
+    await page.goto(world.url('/account'));
     await eventually(() => page.getByText('Confirmed', { exact: true }).count()).toBe(1);
     expect(await page.getByRole('checkbox', { name: /Drummer/ }).isChecked()).toBe(true);
     expect(await page.getByRole('checkbox', { name: /Songwriter/ }).isChecked()).toBe(false);
     await screenshot(page, 'account-desktop');
     // The signed-in shell and the account forms are checked too, not only the public pages.
-    expect(await seriousAxeViolations(page)).toEqual([]);
+    await expectAxeClean(page, 'the account page');
 
     await openAccountMenu(page);
     await page.getByRole('button', { name: 'Sign out' }).click();
@@ -129,7 +100,7 @@ describe('signing up in the browser', () => {
 
     await page.getByLabel('Password').fill(password);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.url}/`);
+    await page.waitForURL(world.url('/'));
     await eventually(() => navLabels(page)).toContain('My rooms');
     expect(await navLabels(page)).not.toContain('My briefs');
     expect(await navLabels(page)).not.toContain('Admin desk');
@@ -137,7 +108,7 @@ describe('signing up in the browser', () => {
 
   it('lets keyboard users skip to the content and shows where focus is', async () => {
     const { page } = await session('desktop');
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(world.url('/sign-in'));
     await eventually(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Sign in');
     await page.keyboard.press('Tab');
     const skip = page.getByRole('link', { name: 'Skip to content' });
@@ -151,7 +122,7 @@ describe('signing up in the browser', () => {
 
   it('shows the navigation behind the menu button on a phone-sized screen', async () => {
     const { page } = await session('mobile');
-    await page.goto(`${server.url}/`);
+    await page.goto(world.url('/'));
     await eventually(() => page.getByRole('heading', { level: 1 }).count()).toBe(1);
     // Collapsed: no main navigation until the menu is opened.
     expect(await mainNav(page).count()).toBe(0);
@@ -172,15 +143,15 @@ describe('signing up in the browser', () => {
 
   it('signs a seeded songwriter in on a phone and shows the songwriter navigation', async () => {
     const { page } = await session('mobile');
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(world.url('/sign-in'));
     await screenshot(page, 'sign-in-mobile');
     // A songwriter from the demo seed (the README lists the logins).
     const { DEMO_PEOPLE } = await import('../../server/db/demo-world');
     const songwriter = DEMO_PEOPLE.find((p) => p.roles.includes('songwriter' as never) && p.roles.length === 1)!;
     await page.getByLabel('Email').fill(songwriter.email);
-    await page.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass');
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.url}/`);
+    await page.waitForURL(world.url('/'));
     await page.getByRole('button', { name: 'Menu' }).click();
     await eventually(() => navLabels(page)).toEqual(['My briefs', 'Find drummers', 'Messages', 'Bookings', 'Account']);
     await screenshot(page, 'menu-signed-in-mobile');
@@ -192,7 +163,7 @@ describe('account upkeep in the browser', () => {
     const { page, problems } = await session('desktop');
     const email = 'juno@kitlane.test';
     const newPassword = 'paradiddle-on-the-ride';
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(world.url('/sign-in'));
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
     // The page is lazy-loaded: wait for it, or the click lands on the sign-in form still on screen.
     await eventually(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Forgot your password?');
@@ -201,8 +172,8 @@ describe('account upkeep in the browser', () => {
     await eventually(() => page.getByRole('status').filter({ hasText: 'If an account uses that address' }).count()).toBe(1);
     await screenshot(page, 'forgot-password-sent-desktop');
 
-    const mail = await server.waitForMail(email, /Reset your Kitlane password/);
-    const link = mail.links.find((l) => l.startsWith(`${server.url}/reset-password?token=`));
+    const mail = await world.server.waitForMail(email, /Reset your Kitlane password/);
+    const link = mail.links.find((l) => l.startsWith(world.url('/reset-password?token=')));
     expect(link, 'the reset mail links to this server').toBeTruthy();
     await page.goto(link!);
     await page.getByLabel('New password').fill(newPassword);
@@ -216,21 +187,21 @@ describe('account upkeep in the browser', () => {
     await page.getByRole('button', { name: 'Save new password' }).click();
     await eventually(() => page.getByRole('alert').innerText()).toMatch(/not valid any more/);
 
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(world.url('/sign-in'));
     await page.getByLabel('Email').fill(email);
     await page.getByLabel('Password').fill(newPassword);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.url}/`);
+    await page.waitForURL(world.url('/'));
     await eventually(() => navLabels(page)).toContain('Open briefs');
   });
 
   it('saves a new display name and time zone on the account page', async () => {
     const { page } = await session('desktop');
-    await page.goto(`${server.url}/account`);
+    await page.goto(world.url('/account'));
     // Signed out: the account page sends you to sign in and back again.
     await page.waitForURL('**/sign-in?next=%2Faccount');
     await page.getByLabel('Email').fill('pim@kitlane.test');
-    await page.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'kitlane-demo-pass');
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/account');
 
@@ -254,7 +225,7 @@ describe('weight of the first page', () => {
       if (response.request().resourceType() !== 'script') return;
       scripts.set(response.url(), gzipSync(await response.body()).length);
     });
-    await page.goto(`${server.url}/`, { waitUntil: 'networkidle' });
+    await page.goto(world.url('/'), { waitUntil: 'networkidle' });
     await eventually(() => page.getByRole('heading', { level: 1 }).count()).toBe(1);
     const totalKb = [...scripts.values()].reduce((a, b) => a + b, 0) / 1024;
     console.info(`home page JavaScript: ${scripts.size} files, ${totalKb.toFixed(1)} kB gzip`);
@@ -276,17 +247,17 @@ describe('accessibility of the public pages', () => {
     for (const target of PUBLIC_PAGES) {
       it(`finds no serious or critical axe violations on ${target.name} (${viewport})`, async () => {
         const { page } = await session(viewport);
-        await page.goto(`${server.url}${target.path}`);
+        await page.goto(world.url(`${target.path}`));
         await eventually(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(target.heading);
         expect(await page.getByRole('heading', { level: 1 }).count(), 'one h1 per page').toBe(1);
         expect(await page.getByRole('main').count()).toBe(1);
         expect(await page.getByRole('banner').count()).toBe(1);
         expect(await page.getByRole('contentinfo').count()).toBe(1);
         // The footer links to the local inbox because this server runs on the fakes.
-        expect(await page.getByRole('link', { name: 'Local mail inbox' }).getAttribute('href')).toBe(server.mailWebUrl);
+        expect(await page.getByRole('link', { name: 'Local mail inbox' }).getAttribute('href')).toBe(world.server.mailWebUrl);
 
         await screenshot(page, `${target.name}-${viewport}`);
-        expect(await seriousAxeViolations(page)).toEqual([]);
+        await expectAxeClean(page, `${target.name} (${viewport})`);
       });
     }
   }

@@ -1,3 +1,4 @@
+import { expect } from 'vitest';
 import type { Page } from 'playwright-core';
 import { AxeBuilder } from '@axe-core/playwright';
 
@@ -9,4 +10,9 @@ export async function seriousAxeViolations(page: Page): Promise<string[]> {
   return results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
     .map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`);
+}
+
+/** Fails the test with the findings, naming the page, when axe reports anything serious or critical. */
+export async function expectAxeClean(page: Page, name: string): Promise<void> {
+  expect(await seriousAxeViolations(page), `axe on ${name}`).toEqual([]);
 }
