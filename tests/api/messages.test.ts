@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
@@ -261,6 +261,22 @@ describe('sending and reading messages', () => {
     expect(read.status).toBe(200);
     expect(read.body.unread).toBe(before);
     expect((await songwriter.client.get('/api/unread')).body.messages).toBe(before);
+  });
+
+  it('counts a message sent in the same millisecond as a read as unread: the marker is the newest message seen', async () => {
+    const briefId = insertBrief(songwriter.id, 'open');
+    const threadId = (await briefThread(drummer, briefId)).body.thread.id;
+    expect((await send(drummer, threadId, 'First take is up.')).status).toBe(201);
+    const before = (await songwriter.client.get('/api/unread')).body.messages;
+    // Freeze the clock (Date only, timers run) so the read and the next message carry the same millisecond.
+    vi.useFakeTimers({ toFake: ['Date'], now: Date.now() + 5_000 });
+    try {
+      expect((await songwriter.client.post(`/api/threads/${threadId}/read`)).body.unread).toBe(before - 1);
+      expect((await send(drummer, threadId, 'Second take, same millisecond.')).status).toBe(201);
+      expect((await songwriter.client.get('/api/unread')).body.messages).toBe(before);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 
   it('lists my threads newest first with unread counts and the last message', async () => {

@@ -256,8 +256,9 @@ export function createMessagesService(deps: {
 
     markThreadRead(user: CurrentUser, threadId: string): { unread: number } {
       const thread = threadOfParticipant(user, threadId);
-      // Up to the newest message even when its time was nudged a millisecond ahead of the clock.
-      const at = new Date(Math.max(Date.now(), thread.lastMessageAt?.getTime() ?? 0));
+      // Read up to the newest message there is, not up to the clock: a message sent in the same millisecond
+      // just after this read is stamped later than the thread's newest one, so it still counts as unread.
+      const at = thread.lastMessageAt ?? new Date(0);
       repo.markRead(threadId, user.id, at);
       return { unread: repo.unreadTotal(user.id) };
     },
