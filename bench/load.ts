@@ -5,16 +5,18 @@
 // pages, thread polling and sign-in. Target: zero errors. Sign-in limits are raised in the server process so
 // the figure is throughput, not the limiter; any 429 is still counted, apart from errors.
 import { spawn, type ChildProcess } from 'node:child_process';
+import { get } from 'node:http';
+import type { Socket } from 'node:net';
 import { randomUUID } from 'node:crypto';
 import { mkdirSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { eq, like, sql } from 'drizzle-orm';
+import { and, eq, like, sql } from 'drizzle-orm';
 import { openDb, type Db } from '../server/db/client';
 import { applyMigrations } from '../server/db/migrate';
-import { briefs, messages, threadParticipants, threads, users } from '../server/db/schema';
+import { briefs, drummerProfiles, messages, rooms, threadParticipants, threads, users } from '../server/db/schema';
 import { hashPassword } from '../server/auth/password';
 import { createRoomsService } from '../server/features/rooms/rooms.service';
 import { createLocalStorage } from '../server/storage/storage';
@@ -40,7 +42,7 @@ function prng(seed: number): () => number {
   };
 }
 
-const count = (db: Db, table: typeof briefs | typeof messages | typeof users, where?: ReturnType<typeof like>) =>
+const count = (db: Db, table: typeof briefs | typeof messages | typeof users | typeof rooms, where?: ReturnType<typeof like>) =>
   db.select({ n: sql<number>`count(*)` }).from(table).where(where).get()?.n ?? 0;
 
 /** Inserts rows in chunks inside one transaction: SQLite's variable limit caps a single multi-row insert. */
@@ -50,7 +52,7 @@ function bulkInsert<T>(db: Db, rows: T[], insert: (chunk: T[]) => void, chunkSiz
   })();
 }
 
-async function addPeople(db: Db, role: 'songwriter' | 'engineer', n: number, passwordHash: string): Promise<void> {
+function addPeople(db: Db, role: 'songwriter' | 'engineer', n: number, passwordHash: string): void {
   const now = new Date();
   const rows = Array.from({ length: n }, (_, i) => ({
     id: randomUUID(),
@@ -68,14 +70,14 @@ async function addPeople(db: Db, role: 'songwriter' | 'engineer', n: number, pas
 const idsOf = (db: Db, prefix: string) => db.select({ id: users.id }).from(users).where(like(users.email, `${prefix}-%@${LARGE_EMAIL_DOMAIN}`)).all().map((r) => r.id);
 
 function addRooms(db: Db, engineerIds: string[], n: number): void {
-  const rooms = createRoomsService({ db, storage: createLocalStorage(join(tmpdir(), 'kitlane-bench-unused-files')), logger: createLogger('silent') });
+  const service = createRoomsService({ db, storage: createLocalStorage(join(tmpdir(), 'kitlane-bench-unused-files')), logger: createLogger('silent') });
   const rand = prng(7);
   db.$client.transaction(() => {
     for (let i = 0; i < n; i++) {
       const engineerId = engineerIds[i % engineerIds.length];
       const user = { id: engineerId, email: '', displayName: '', roles: ['engineer'], emailVerified: true, timeZone: 'UTC' };
       const length = 4 + Math.round(rand() * 80) / 10;
-      rooms.create(user, roomBody({ name: `Room ${i + 1}`, dayRateMinor: 20_000 + Math.floor(rand() * 60_000), halfDayRateMinor: 12_000, dimensions: { unit: 'm', length, width: 3 + Math.round(rand() * 40) / 10, height: 2.4 + Math.round(rand() * 20) / 10 } }) as never);
+      service.create(user, roomBody({ name: `Room ${i + 1}`, dayRateMinor: 20_000 + Math.floor(rand() * 60_000), halfDayRateMinor: 12_000, dimensions: { unit: 'm', length, width: 3 + Math.round(rand() * 40) / 10, height: 2.4 + Math.round(rand() * 20) / 10 } }) as never);
     }
   })();
 }
@@ -143,19 +145,36 @@ export async function seedLoadWorld(dataDir: string): Promise<{ ms: number }> {
     applyMigrations(db);
     if (count(db, briefs) >= LOAD_WORLD.briefs) return { ms: performance.now() - started };
     const passwordHash = await hashPassword(PASSWORD);
-    await addPeople(db, 'engineer', LOAD_WORLD.engineers, passwordHash);
-    await addPeople(db, 'songwriter', LOAD_WORLD.songwriters, passwordHash);
-    addRooms(db, idsOf(db, 'engineer'), LOAD_WORLD.rooms);
-    const songwriterIds = idsOf(db, 'songwriter');
-    const briefIds = addBriefs(db, songwriterIds, LOAD_WORLD.briefs);
-    const songwriterOf = new Map(db.select({ id: briefs.id, songwriterId: briefs.songwriterId }).from(briefs).all().map((b) => [b.id, b.songwriterId]));
-    addThreads(db, briefIds, songwriterOf, idsOf(db, 'drummer'));
+    // One transaction for everything past the drummers (the steps' own become savepoints): a run stopped
+    // half-way leaves nothing behind, so the next run starts this part again instead of meeting taken emails.
+    db.$client.transaction(() => {
+      addPeople(db, 'engineer', LOAD_WORLD.engineers, passwordHash);
+      addPeople(db, 'songwriter', LOAD_WORLD.songwriters, passwordHash);
+      addRooms(db, idsOf(db, 'engineer'), LOAD_WORLD.rooms);
+      const songwriterIds = idsOf(db, 'songwriter');
+      const briefIds = addBriefs(db, songwriterIds, LOAD_WORLD.briefs);
+      const songwriterOf = new Map(db.select({ id: briefs.id, songwriterId: briefs.songwriterId }).from(briefs).all().map((b) => [b.id, b.songwriterId]));
+      addThreads(db, briefIds, songwriterOf, idsOf(db, 'drummer'));
+    })();
     db.$client.pragma('optimize');
     return { ms: performance.now() - started };
   } finally {
     db.$client.close();
   }
 }
+
+/** What dataDir holds of the load world: lets a run show that it measured the large world and not a partial one. */
+export function countLoadWorld(dataDir: string): { drummers: number; rooms: number; briefs: number; messages: number } {
+  const db = openDb(join(resolve(dataDir), 'kitlane.db'));
+  try {
+    return { drummers: count(db, users, like(users.email, `drummer-%@${LARGE_EMAIL_DOMAIN}`)), rooms: count(db, rooms), briefs: count(db, briefs), messages: count(db, messages) };
+  } finally {
+    db.$client.close();
+  }
+}
+
+/** $BENCH_LARGE_DIR, else one fixed folder under the OS temp dir, made on the first run and reused after. */
+export const loadWorldDir = () => resolve(process.env.BENCH_LARGE_DIR ?? DEFAULT_DIR);
 
 // ---------------------------------------------------------------- server process
 
@@ -188,7 +207,8 @@ function startServer(dataDir: string): Promise<{ url: string; child: ChildProces
 
 // ---------------------------------------------------------------- traffic
 
-type AutocannonRequest = { method?: string; path: string; headers?: Record<string, string>; body?: string; onResponse?: (status: number, body: string) => void };
+// `shape` is ours: autocannon copies each request object, and the copy keeps it, so a client's current request names its route.
+type AutocannonRequest = { method?: string; path: string; headers?: Record<string, string>; body?: string; shape?: string; onResponse?: (status: number, body: string) => void };
 type AutocannonResult = {
   requests: { average: number; total: number };
   errors: number;
@@ -198,14 +218,39 @@ type AutocannonResult = {
   duration: number;
 };
 // The returned tracker is both a promise of the summary and an event emitter of each response.
-type AutocannonTracker = PromiseLike<AutocannonResult> & { on(event: 'response', fn: (client: unknown, status: number, bytes: number, ms: number) => void): void };
-type Autocannon = (opts: { url: string; connections: number; duration: number; requests: AutocannonRequest[] }) => AutocannonTracker;
+// One connection: with pipelining 1 its current request is the one in flight, so a response or a timeout
+// can be put down to its route.
+// `_doRequest` and `conn` are autocannon 9's own (pinned in package-lock): see openAllFirst.
+type AutocannonClient = {
+  requestIterator: { currentRequest: AutocannonRequest; nextRequest(): void };
+  on(event: 'timeout', fn: () => void): void;
+  _doRequest(): void;
+  conn: Socket;
+};
+type AutocannonTracker = PromiseLike<AutocannonResult> & { on(event: 'response', fn: (client: AutocannonClient, status: number, bytes: number, ms: number) => void): void };
+type Autocannon = (opts: { url: string; connections: number; duration: number; requests: AutocannonRequest[]; setupClient?: (client: AutocannonClient) => void }) => AutocannonTracker;
 const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 
 async function signIn(url: string, email: string): Promise<string> {
   const res = await fetch(`${url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: PASSWORD }) });
   if (res.status !== 200) throw new Error(`sign-in for ${email} answered ${res.status}`);
   return res.headers.getSetCookie().find((c) => c.startsWith('kitlane_session='))!.split(';')[0];
+}
+
+/**
+ * Drummers whose public page exists: published with a headline (the rule of isDrummerListed). seed-large
+ * leaves about 5 % as drafts, and a draft's page is a 404 — asking for one measured the plan, not the product.
+ */
+function listedDrummerIds(db: Db, n: number): string[] {
+  return db
+    .select({ id: drummerProfiles.userId })
+    .from(drummerProfiles)
+    .innerJoin(users, eq(users.id, drummerProfiles.userId))
+    .where(and(eq(drummerProfiles.published, true), sql`trim(${drummerProfiles.headline}) <> ''`, like(users.email, `drummer-%@${LARGE_EMAIL_DOMAIN}`)))
+    .orderBy(users.email)
+    .limit(n)
+    .all()
+    .map((r) => r.id);
 }
 
 const SEARCH_WORDS = ['rock', 'funk', 'jazz brushes', 'ghost notes', 'room', 'tight pocket', 'ka', 'double kick', ''];
@@ -223,7 +268,7 @@ async function trafficPlan(url: string, dataDir: string): Promise<AutocannonRequ
       .innerJoin(users, eq(users.id, briefs.songwriterId))
       .limit(10)
       .all();
-    drummerIds = idsOf(db, 'drummer').slice(0, 400);
+    drummerIds = listedDrummerIds(db, 400);
   } finally {
     db.$client.close();
   }
@@ -246,10 +291,115 @@ async function trafficPlan(url: string, dataDir: string): Promise<AutocannonRequ
   return plan;
 }
 
+/**
+ * Every request of the plan once, one after another, before the clock starts: a freshly started server
+ * prepares its statements and fills SQLite's page cache on first use, and the run is about the steady state.
+ */
+async function warmUp(url: string, plan: AutocannonRequest[]): Promise<void> {
+  for (const req of plan) {
+    const res = await fetch(`${url}${req.path}`, { method: req.method ?? 'GET', headers: req.headers, body: req.body });
+    await res.arrayBuffer();
+  }
+}
+
 function percentile(sorted: number[], q: number): number {
   if (sorted.length === 0) return NaN;
   const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
   return Math.round(sorted[i] * 100) / 100;
+}
+
+/** `GET /api/drummers/:id`: ids and query strings dropped, so a table row is one route. */
+export function routeShape(req: Pick<AutocannonRequest, 'method' | 'path'>): string {
+  return `${req.method ?? 'GET'} ${req.path.replace(/[0-9a-f-]{36}/g, ':id').replace(/\?.*$/, '')}`;
+}
+
+export type RouteFigures = { requests: number; p50Ms: number; p99Ms: number; maxMs: number; timeouts: number };
+
+/**
+ * Starts connection i at its own place in the plan (i/connections of the way through). Left alone, all 100
+ * connections walk the plan in step, so each sign-in in it arrives as a burst of 100 argon2 hashes at once —
+ * a wave no real crowd makes, which showed as sign-ins of 3 s and more while the other routes stayed under 1 s.
+ */
+function staggered(planLength: number, connections: number): (client: AutocannonClient) => void {
+  let next = 0;
+  return (client) => {
+    const skip = Math.floor((next++ * planLength) / connections) % planLength;
+    for (let k = 0; k < skip; k++) client.requestIterator.nextRequest();
+  };
+}
+
+/** One GET on a connection of its own (no keep-alive pool): it is accepted after every connection opened before it. */
+function onFreshConnection(url: string): Promise<void> {
+  return new Promise((res, rej) => {
+    get(`${url}/api/health`, { agent: false }, (r) => r.resume().once('end', res)).once('error', rej);
+  });
+}
+
+/**
+ * Holds every connection's first request until all of them are open and accepted. libuv accepts one new
+ * connection per turn of the event loop (libuv pull request 3696), so when 100 connections open at once and
+ * the first few start sending at once, the server is busy with those while the rest wait a turn each —
+ * under load a turn is 0.3–0.5 s, so the last waited past autocannon's 10 s timeout, reconnected at the back
+ * of the queue and timed out again. Those were every timeout we saw; the run measures 100 open connections.
+ */
+function openAllFirst(url: string, connections: number): (client: AutocannonClient) => void {
+  let connected = 0;
+  let allConnected!: () => void;
+  // A connection that fails to open must not hold the others for ever: it is an error of the run.
+  const opened = new Promise<void>((res) => {
+    allConnected = res;
+    setTimeout(res, 10_000).unref();
+  });
+  // The accept queue is first in, first out: once a later connection is answered, every earlier one was accepted.
+  // If the probe itself fails the run goes ahead: whatever is wrong then shows in its own figures.
+  const go = opened.then(() => onFreshConnection(url)).catch(() => undefined);
+  return (client) => {
+    const send = client._doRequest.bind(client);
+    let first = true;
+    client._doRequest = () => {
+      if (!first) return send();
+      first = false;
+      client.conn.once('connect', () => ++connected === connections && allConnected());
+      void go.then(send);
+    };
+  };
+}
+
+export type SlowResponse = { shape: string; ms: number; answeredAtSec: number };
+const SLOWEST_KEPT = 5;
+
+/** Response times and timeouts per route shape, so a slow or failing run says which route it was. */
+function routeRecorder() {
+  const times = new Map<string, number[]>();
+  const timeouts = new Map<string, number>();
+  const started = performance.now();
+  let slowest: SlowResponse[] = [];
+  const shapeNow = (client: AutocannonClient) => client.requestIterator.currentRequest.shape ?? 'unknown';
+  return {
+    onResponse(client: AutocannonClient, ms: number): void {
+      const shape = shapeNow(client);
+      if (slowest.length < SLOWEST_KEPT || ms > slowest[slowest.length - 1].ms) {
+        const answeredAtSec = Math.round((performance.now() - started) / 100) / 10;
+        slowest = [...slowest, { shape, ms: Math.round(ms), answeredAtSec }].sort((a, b) => b.ms - a.ms).slice(0, SLOWEST_KEPT);
+      }
+      const list = times.get(shape) ?? [];
+      if (list.length === 0) times.set(shape, list);
+      list.push(ms);
+    },
+    watch(client: AutocannonClient): void {
+      client.on('timeout', () => timeouts.set(shapeNow(client), (timeouts.get(shapeNow(client)) ?? 0) + 1));
+    },
+    slowest: () => slowest,
+    figures(): Record<string, RouteFigures> {
+      const shapes = [...new Set([...times.keys(), ...timeouts.keys()])].sort();
+      return Object.fromEntries(
+        shapes.map((shape) => {
+          const sorted = [...(times.get(shape) ?? [])].sort((a, b) => a - b);
+          return [shape, { requests: sorted.length, p50Ms: percentile(sorted, 0.5), p99Ms: percentile(sorted, 0.99), maxMs: sorted.at(-1) ?? NaN, timeouts: timeouts.get(shape) ?? 0 }];
+        }),
+      );
+    },
+  };
 }
 
 export type LoadBenchResult = {
@@ -266,11 +416,14 @@ export type LoadBenchResult = {
   otherNon2xx: number;
   statusCounts: Record<string, number>;
   nonOk: Record<string, { count: number; sample: string }>;
+  routes: Record<string, RouteFigures>;
+  /** The few slowest answers, with the second of the run they came back in: a stall shows as a cluster. */
+  slowest: SlowResponse[];
   seedMs: number;
 };
 
 export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; connections?: number } = {}): Promise<LoadBenchResult> {
-  const dataDir = resolve(opts.dataDir ?? process.env.BENCH_LARGE_DIR ?? DEFAULT_DIR);
+  const dataDir = resolve(opts.dataDir ?? loadWorldDir());
   const { ms: seedMs } = await seedLoadWorld(dataDir);
   const { url, child } = await startServer(dataDir);
   try {
@@ -278,19 +431,32 @@ export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; co
     const nonOk: Record<string, { count: number; sample: string }> = {};
     const requests = (await trafficPlan(url, dataDir)).map((req) => ({
       ...req,
+      shape: routeShape(req),
       onResponse: (status: number, body: string) => {
         if (status >= 200 && status < 300) return;
-        const key = `${status} ${req.method ?? 'GET'} ${req.path.replace(/[0-9a-f-]{36}/g, ':id').replace(/\?.*$/, '')}`;
+        const key = `${status} ${routeShape(req)}`;
         nonOk[key] ??= { count: 0, sample: String(body ?? '').slice(0, 200) };
         nonOk[key].count++;
       },
     }));
+    await warmUp(url, requests);
     const connections = opts.connections ?? 100;
     const duration = opts.quick ? 5 : 30;
     // Every response time is kept so p95 is an exact percentile (autocannon's summary has p90 and p97.5, not p95).
     const times: number[] = [];
-    const tracker = autocannon({ url, connections, duration, requests });
-    tracker.on('response', (_client, _status, _bytes, ms) => times.push(ms));
+    const routes = routeRecorder();
+    const stagger = staggered(requests.length, connections);
+    const holdFirst = openAllFirst(url, connections);
+    const setupClient = (client: AutocannonClient) => {
+      stagger(client);
+      routes.watch(client);
+      holdFirst(client);
+    };
+    const tracker = autocannon({ url, connections, duration, requests, setupClient });
+    tracker.on('response', (client, _status, _bytes, ms) => {
+      times.push(ms);
+      routes.onResponse(client, ms);
+    });
     const r = await tracker;
     times.sort((a, b) => a - b);
     const statusCounts = Object.fromEntries(Object.entries(r.statusCodeStats ?? {}).map(([code, s]) => [code, s.count]));
@@ -309,6 +475,8 @@ export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; co
       otherNon2xx: r.non2xx - rateLimited,
       statusCounts,
       nonOk,
+      routes: routes.figures(),
+      slowest: routes.slowest(),
       seedMs: Math.round(seedMs),
     };
   } finally {
@@ -319,12 +487,29 @@ export async function runLoadBench(opts: { quick?: boolean; dataDir?: string; co
 
 export const loadPassed = (r: LoadBenchResult) => r.errors === 0 && r.timeouts === 0 && r.otherNon2xx === 0;
 
+const ms = (n: number) => `${Math.round(n)} ms`;
+
+/** The figures as a few lines of text: the whole run, then one line per route shape, then every non-2xx. */
+export function formatLoadReport(r: LoadBenchResult): string {
+  const statuses = Object.entries(r.statusCounts).map(([code, n]) => `${code}×${n}`).join(', ');
+  const lines = [
+    `load: ${r.connections} connections × ${r.durationSec} s, ${r.requests} requests, ${r.requestsPerSec} req/s`,
+    `  latency p50 ${ms(r.p50Ms)} / p95 ${ms(r.p95Ms)} / p99 ${ms(r.p99Ms)}`,
+    `  errors (incl. timeouts) ${r.errors}, timeouts ${r.timeouts}, non-2xx ${r.otherNon2xx + r.rateLimited} (429: ${r.rateLimited}); statuses ${statuses || 'none'}`,
+    `  world ready in ${(r.seedMs / 1000).toFixed(1)} s`,
+    ...Object.entries(r.routes).map(([shape, f]) => `  ${shape.padEnd(36)} ${String(f.requests).padStart(5)} req  p50 ${ms(f.p50Ms)}  p99 ${ms(f.p99Ms)}  max ${ms(f.maxMs)}  timeouts ${f.timeouts}`),
+    `  slowest: ${r.slowest.map((x) => `${x.shape} ${ms(x.ms)} at ${x.answeredAtSec} s`).join('; ')}`,
+    ...Object.entries(r.nonOk).map(([key, v]) => `  non-2xx ${key}: ${v.count}× e.g. ${v.sample}`),
+  ];
+  return lines.join('\n');
+}
+
 if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
   if (process.argv.includes('--serve')) {
     await serve(process.argv[process.argv.indexOf('--serve') + 1]);
   } else {
     const r = await runLoadBench({ quick: process.argv.includes('--quick') });
-    console.log(JSON.stringify(r, null, 2));
+    console.log(formatLoadReport(r));
     console.log(loadPassed(r) ? 'zero errors: met' : 'errors: NOT met');
   }
 }

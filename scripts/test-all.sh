@@ -34,7 +34,7 @@ mkdir -p .artifacts/test-results
 run "type check" npx tsc --noEmit -p tsconfig.json
 run "lint" npx eslint . --max-warnings=0
 run "build client" npx vite build --logLevel warn
-for project in unit api e2e; do
+for project in unit api e2e load; do
   run "$project tests" npx vitest run --project "$project" --passWithNoTests --reporter=default --reporter=json \
     --outputFile.json=".artifacts/test-results/$project.json"
 done

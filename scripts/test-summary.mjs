@@ -1,4 +1,4 @@
-// Adds up the Vitest JSON reports of the unit, api and e2e runs and prints one closing line.
+// Adds up the Vitest JSON reports of the unit, api, e2e and load runs and prints one closing line.
 import { readFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 
@@ -6,7 +6,7 @@ const [dir, failedSteps = '0'] = process.argv.slice(2);
 let passed = 0;
 let failed = 0;
 let skipped = 0;
-for (const project of ['unit', 'api', 'e2e']) {
+for (const project of ['unit', 'api', 'e2e', 'load']) {
   const file = join(dir, `${project}.json`);
   if (!existsSync(file)) {
     console.log(`${project}: no report (the run did not finish)`);
