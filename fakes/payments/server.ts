@@ -8,6 +8,7 @@ import { lookupIdempotency, requestFingerprint, scopedKey } from './idempotency'
 import { DEFAULT_MINIMUM_AMOUNTS } from './money';
 import { loadState } from './state-file';
 import { WebhookDispatcher } from './webhooks';
+import { ResponseHolds } from './held-responses';
 import { accountRoutes, checkConnectedAccount, completeOnboarding, usableLink } from './accounts';
 import { balanceRoutes } from './balance';
 import { checkoutSessionRoutes, expireDueSessions, getSession, payCheckoutSession, successRedirect } from './checkout-sessions';
@@ -158,6 +159,7 @@ class PaymentsFakeServer {
   private webhookUrl: string | null;
   private listeningUrl = '';
   private sweep: NodeJS.Timeout | null = null;
+  private readonly holds = new ResponseHolds();
 
   constructor(private readonly options: PaymentsFakeOptions) {
     this.webhookUrl = options.webhookUrl ?? null;
@@ -200,6 +202,7 @@ class PaymentsFakeServer {
 
   async stop(): Promise<void> {
     if (this.sweep) clearInterval(this.sweep);
+    this.holds.release();
     await this.dispatcher.stop();
     this.core.persist();
   }
@@ -209,7 +212,7 @@ class PaymentsFakeServer {
     const url = new URL(req.url ?? '/', 'http://fake.local');
     try {
       const body = method === 'POST' ? await readBody(req) : '';
-      if (url.pathname.startsWith('/v1/')) return sendJson(res, this.api(req, method, url, body));
+      if (url.pathname.startsWith('/v1/')) return this.answerApi(req, res, method, url, body);
       if (url.pathname.startsWith('/checkout/')) return this.checkoutPage(req, res, method, url.pathname.slice('/checkout/'.length), body);
       if (url.pathname.startsWith('/onboarding/')) return this.onboardingPage(res, method, url.pathname.slice('/onboarding/'.length));
       if (url.pathname.startsWith('/_fake/')) return sendJson(res, await this.fakeControl(req, method, url.pathname, body));
@@ -220,6 +223,14 @@ class PaymentsFakeServer {
       console.error('payments fake: unexpected error', error);
       return sendJson(res, { status: 500, body: { error: { type: 'api_error', message: 'An unexpected error occurred in the payments fake.' } } });
     }
+  }
+
+  /** Sends the API's answer now, or parks it when a test holds answers on this path. */
+  private answerApi(req: IncomingMessage, res: ServerResponse, method: string, url: URL, body: string): void {
+    const reply = this.api(req, method, url, body);
+    if (!this.holds.holds(method, url.pathname)) return sendJson(res, reply);
+    const idempotencyKey = headerValue(req, 'idempotency-key') ?? null;
+    this.holds.park(res, { method, path: url.pathname, idempotencyKey, status: reply.status }, () => sendJson(res, reply));
   }
 
   /** The /v1 API: authentication, routing, the Stripe-Account header and idempotency. */
@@ -334,6 +345,15 @@ class PaymentsFakeServer {
       this.dispatcher.setMode(mode as WebhookMode);
       return { status: 200, body: { ok: true, mode } };
     }
+    // Hold the answers to POSTs on one API path (the work is done and saved, only the answer waits).
+    if (pathname === '/_fake/responses/hold' && method === 'POST') {
+      const path = looseParams(req, body).path;
+      if (typeof path !== 'string' || !path.startsWith('/v1/')) throw invalidRequest('path must be an API path such as /v1/transfers', { param: 'path' });
+      this.holds.hold(path);
+      return { status: 200, body: { ok: true, holding: path } };
+    }
+    if (pathname === '/_fake/responses/held' && method === 'GET') return { status: 200, body: { object: 'list', data: this.holds.held() } };
+    if (pathname === '/_fake/responses/release' && method === 'POST') return { status: 200, body: { ok: true, released: this.holds.release() } };
     if (pathname === '/_fake/webhooks/flush' && method === 'POST') return { status: 200, body: { ok: true, ...(await this.dispatcher.flush()) } };
     if (pathname === '/_fake/webhooks/deliveries' && method === 'GET') {
       return { status: 200, body: { object: 'list', mode: this.core.state.webhookMode, data: this.core.state.deliveries } };

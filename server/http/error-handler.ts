@@ -2,6 +2,8 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from './app-error';
 import type { Logger } from '../logger';
+// The processor's outage is the one integration failure every money route shares, so it is mapped here.
+import { isProcessorUnreachable, paymentUnavailable } from '../features/payments/processor-errors';
 
 export function fieldsOf(error: ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
@@ -16,6 +18,8 @@ export function fieldsOf(error: ZodError): Record<string, string> {
 function fromKnownError(err: unknown): AppError | null {
   if (err instanceof AppError) return err;
   if (err instanceof ZodError) return new AppError('invalid_input', 'Some fields need attention', 400, fieldsOf(err));
+  // A processor call no service caught (a refresh, a sync): still a "try again", not a 500.
+  if (isProcessorUnreachable(err)) return paymentUnavailable();
   const e = err as { type?: string; status?: number; code?: string; message?: string; field?: string };
   if (e?.type === 'entity.too.large' || e?.code === 'LIMIT_FILE_SIZE') {
     return new AppError('too_large', 'That is larger than allowed', 413);

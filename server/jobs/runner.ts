@@ -1,4 +1,4 @@
-import { and, asc, eq, lte, or, sql } from 'drizzle-orm';
+import { and, asc, eq, lte, ne, or, sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import type { Db } from '../db/client';
 import { jobs } from '../db/schema';
@@ -74,7 +74,25 @@ export class JobRunner {
   start(): void {
     if (!this.stopped) return;
     this.stopped = false;
+    this.recoverCutOff();
     this.schedule(0);
+  }
+
+  /**
+   * One process owns the SQLite file (the delivery jobs rely on it too), so at start a job still marked
+   * running belongs to a process that died (a crash, SIGKILL, a power cut). It is queued again now rather
+   * than after its lease, which for a money job would leave a booking half-way for minutes. Handlers are
+   * idempotent, so a job that had in fact finished its work just finds it done.
+   */
+  private recoverCutOff(): void {
+    const now = this.now();
+    const recovered = this.db
+      .update(jobs)
+      .set({ status: 'queued', lockedBy: null, lockedUntil: null, runAt: now })
+      .where(and(eq(jobs.status, 'running'), ne(jobs.lockedBy, this.owner)))
+      .returning({ id: jobs.id })
+      .all();
+    if (recovered.length > 0) this.logger.info(`requeued ${recovered.length} jobs cut off by a previous run`);
   }
 
   async stop(): Promise<void> {

@@ -2,73 +2,18 @@
 // and are killed with SIGKILL. A sign-up made while the mail catcher is down still succeeds (the mail waits in
 // the outbox), the server is then killed and restarted on the same data, the catcher comes back on the same
 // port, and the confirmation mail arrives exactly once.
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
+import { appEnv, freePort, killAll, killHard, startProcess, tempDataDir, waitFor } from './helpers/processes';
 
-const children = new Set<ChildProcess>();
-const dataDir = mkdtempSync(join(tmpdir(), 'kitlane-crash-'));
+const data = tempDataDir();
+const dataDir = data.dir;
 
 afterAll(async () => {
-  for (const c of children) await killHard(c);
-  rmSync(dataDir, { recursive: true, force: true });
+  await killAll();
+  data.remove();
 });
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
-}
-
-/** Starts `tsx <script>` with env; resolves once its stdout shows `ready`. */
-function startProcess(script: string, env: Record<string, string>, ready: RegExp): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
-  children.add(child);
-  return new Promise((resolve, reject) => {
-    let out = '';
-    const timer = setTimeout(() => reject(new Error(`${script} not ready in 60 s: ${out.slice(-500)}`)), 60_000);
-    const onData = (d: Buffer) => {
-      out += d.toString();
-      if (ready.test(out)) {
-        clearTimeout(timer);
-        resolve(child);
-      }
-    };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-    child.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`${script} exited ${code}: ${out.slice(-1000)}`));
-    });
-  });
-}
-
-async function killHard(child: ChildProcess): Promise<void> {
-  children.delete(child);
-  if (child.exitCode !== null || child.signalCode !== null) return;
-  const exited = new Promise((r) => child.once('exit', r));
-  child.kill('SIGKILL');
-  await exited;
-}
-
-async function waitFor<T>(what: string, probe: () => Promise<T | null> | T | null, timeoutMs = 30_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await probe();
-    if (v !== null) return v;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 type Mail = { to: string[]; subject: string };
 
@@ -76,10 +21,10 @@ describe('crash recovery: mail outbox across a dead mail server and a killed app
   it('queues the sign-up mail while the mail server is down and delivers it once after both come back', async () => {
     const [appPort, smtpPort, webPort] = [await freePort(), await freePort(), await freePort()];
     const mailEnv = { MAIL_SMTP_PORT: String(smtpPort), MAIL_WEB_PORT: String(webPort) };
-    const appEnv = { ...mailEnv, NODE_ENV: 'test', PORT: String(appPort), DATA_DIR: dataDir, START_FAKES: 'false', SEED_DEMO: 'false', LOG_LEVEL: 'error', APP_URL: `http://127.0.0.1:${appPort}` };
+    const env = { ...appEnv({ dataDir, port: appPort, mailSmtpPort: smtpPort }), MAIL_WEB_PORT: String(webPort) };
     const base = `http://127.0.0.1:${appPort}`;
     const startMail = () => startProcess('fakes/mail/main.ts', mailEnv, /mail catcher: SMTP/);
-    const startApp = () => startProcess('server/index.ts', appEnv, /Kitlane is running/);
+    const startApp = () => startProcess('server/index.ts', env, /Kitlane is running/);
 
     let mail = await startMail();
     let server = await startApp();

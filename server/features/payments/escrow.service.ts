@@ -23,6 +23,7 @@ import { ACCOUNTS, escrowHeld, postTransaction, type LedgerEntryInput } from '..
 import { allocateAcrossCharges, planOutcome, refundForPercent, type OutcomePlan } from './escrow-rules';
 import { paymentsRepo as repo, type BookingRow, type IntentRow, type PaymentRow } from './payments.repository';
 import { cancelAutoAccept, markAutoAcceptDone } from './auto-accept';
+import { isProcessorUnreachable, processorError } from './processor-errors';
 
 /** Background work (auto-accept, repair) acts as the system, not as a person. */
 export const SYSTEM = { kind: 'system' } as const;
@@ -65,12 +66,6 @@ const lower = (currency: string) => currency.toLowerCase();
 function asAppError(error: unknown): never {
   if (error instanceof MoneyError) throw new AppError(error.code, error.message, 400);
   throw error;
-}
-
-/** A processor answer that is not ours to fix: shown to the user as a 502 with the processor's words. */
-function processorFailure(error: unknown): AppError {
-  const e = error as { message?: string; code?: string };
-  return new AppError('processor_error', `The payment processor did not accept this: ${e.message ?? 'no answer'}`, 502);
 }
 
 /** Extra revisions asked for beyond the included ones, not yet paid for. */
@@ -350,7 +345,12 @@ export function createEscrowService(ctx: AppContext) {
         { idempotencyKey: payment.idempotencyKey },
       );
     } catch (error) {
-      throw processorFailure(error);
+      // Unreachable: nothing was charged. The half-made row goes, so the booking reads as before; a retry
+      // counts the same attempt number, so its idempotency key (and any session made meanwhile) is the same.
+      if (isProcessorUnreachable(error)) {
+        db.delete(bookingPayments).where(and(eq(bookingPayments.id, payment.id), eq(bookingPayments.status, 'creating'))).run();
+      }
+      throw processorError(error, 'did not accept this');
     }
     db.update(bookingPayments).set({ sessionId: session.id, url: session.url, status: 'open' }).where(eq(bookingPayments.id, payment.id)).run();
     return { url: session.url!, sessionId: session.id };
@@ -693,6 +693,8 @@ export function createEscrowService(ctx: AppContext) {
       const clock = repo.autoAccept(tx, bookingId);
       if (!clock || clock.status !== 'scheduled' || clock.dueAt.getTime() !== dueAt || dueAt > Date.now()) return false;
       const booking = repo.booking(tx, bookingId);
+      // Accepted by an earlier run of this job that died before its release: the release is still owed.
+      if (booking?.status === 'accepted' && repo.moneyOf(tx, bookingId).outcome === null) return true;
       if (!booking || booking.status !== 'delivered') {
         markAutoAcceptDone(tx, bookingId);
         return false;

@@ -6,10 +6,11 @@ import type Stripe from 'stripe';
 import type { AppContext } from '../../app';
 import { payoutAccounts } from '../../db/schema';
 import type { CurrentUser } from '../../auth/middleware';
-import { AppError, forbidden } from '../../http/app-error';
+import { forbidden } from '../../http/app-error';
 import { MONEY_NOTICE, type PayoutAccountView } from '@shared/schemas/payments';
 import { paymentsRepo as repo } from './payments.repository';
 import { escrowFor } from './escrow.service';
+import { processorError } from './processor-errors';
 
 const PAYEE_ROLES = ['drummer', 'engineer'];
 
@@ -46,7 +47,7 @@ export function createPayoutAccounts(ctx: AppContext) {
         { idempotencyKey: `kitlane:payout-account:${user.id}` },
       );
     } catch (error) {
-      throw new AppError('processor_error', `The payment processor could not open a payout account: ${(error as Error).message}`, 502);
+      throw processorError(error, 'could not open a payout account');
     }
     const now = new Date();
     db.insert(payoutAccounts)
@@ -69,7 +70,7 @@ export function createPayoutAccounts(ctx: AppContext) {
       });
       return { url: link.url };
     } catch (error) {
-      throw new AppError('processor_error', `The payment processor could not start onboarding: ${(error as Error).message}`, 502);
+      throw processorError(error, 'could not start onboarding');
     }
   }
 
