@@ -3,7 +3,7 @@
 // delivered stems are reviewed — signed in through the session cookie). Desktop preset (no mobile CPU/network
 // throttling): Kitlane's review work happens at a desk with studio monitors. Targets: performance ≥ 0.9,
 // accessibility 1.0 (issue 7).
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -39,18 +39,27 @@ async function reviewPath(base: string, cookie: string): Promise<string> {
   return `/bookings/${best.id}`;
 }
 
-async function audit(url: string, port: number, cookie: string | null): Promise<Omit<LighthousePage, 'name' | 'path'>> {
+export type LighthouseOptions = {
+  distDir?: string;
+  /** Page names to audit (home, search, review); all when absent. */
+  only?: string[];
+  /** Writes each page's whole Lighthouse report (`<name>.json`) here, to read the audits behind a score. */
+  reportDir?: string;
+};
+
+async function audit(url: string, port: number, cookie: string | null, reportFile: string | null): Promise<Omit<LighthousePage, 'name' | 'path'>> {
   const { default: lighthouse } = await import('lighthouse');
   const { default: desktopConfig } = await import('lighthouse/core/config/desktop-config.js');
   const result = await lighthouse(url, { port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}) }, desktopConfig);
   if (!result) throw new Error(`lighthouse returned nothing for ${url}`);
   const lhr = result.lhr;
+  if (reportFile) writeFileSync(reportFile, JSON.stringify(lhr));
   const a11yRefs = lhr.categories.accessibility?.auditRefs ?? [];
   const failedA11y = a11yRefs.filter((ref) => ref.weight > 0 && (lhr.audits[ref.id]?.score ?? 1) < 1).map((ref) => ref.id);
   return { performance: lhr.categories.performance?.score ?? null, accessibility: lhr.categories.accessibility?.score ?? null, failedA11y };
 }
 
-export async function runLighthouseBench(opts: { distDir?: string } = {}): Promise<LighthouseBenchResult> {
+export async function runLighthouseBench(opts: LighthouseOptions = {}): Promise<LighthouseBenchResult> {
   const distDir = opts.distDir ?? (await buildClient());
   const dataDir = mkdtempSync(join(tmpdir(), 'kitlane-bench-lh-'));
   let running: Running | null = null;
@@ -66,9 +75,13 @@ export async function runLighthouseBench(opts: { distDir?: string } = {}): Promi
       { name: 'home', path: '/', cookie: null },
       { name: 'search', path: '/drummers', cookie: null },
       { name: 'review', path: await reviewPath(base, cookie), cookie },
-    ];
+    ].filter((page) => !opts.only || opts.only.includes(page.name));
+    if (opts.reportDir) mkdirSync(opts.reportDir, { recursive: true });
     const out: LighthousePage[] = [];
-    for (const page of pages) out.push({ name: page.name, path: page.path, ...(await audit(base + page.path, chrome.port, page.cookie)) });
+    for (const page of pages) {
+      const reportFile = opts.reportDir ? join(opts.reportDir, `${page.name}.json`) : null;
+      out.push({ name: page.name, path: page.path, ...(await audit(base + page.path, chrome.port, page.cookie, reportFile)) });
+    }
     return { pages: out, preset: 'desktop' };
   } finally {
     await running?.close();
@@ -77,7 +90,16 @@ export async function runLighthouseBench(opts: { distDir?: string } = {}): Promi
   }
 }
 
+/** `--only=review,home` and `--report-dir=DIR` from the command line. */
+function cliOptions(argv: string[]): LighthouseOptions {
+  const value = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
+  const only = value('only');
+  const reportDir = value('report-dir');
+  return { ...(only ? { only: only.split(',') } : {}), ...(reportDir ? { reportDir: resolve(reportDir) } : {}) };
+}
+
+// npx tsx bench/lighthouse.ts [--only=review] [--report-dir=/tmp/lh]
 if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
-  const r = await runLighthouseBench();
+  const r = await runLighthouseBench(cliOptions(process.argv.slice(2)));
   console.table(Object.fromEntries(r.pages.map((p) => [p.name, { path: p.path, performance: p.performance, accessibility: p.accessibility, failing: p.failedA11y.join(' ') }])));
 }

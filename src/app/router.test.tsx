@@ -4,6 +4,12 @@ import { cleanup, render, screen } from '@testing-library/react';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { fakeServer, testQueryClient } from '@/testing/render-with-providers';
+import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
+import { bookingDeliveriesQueryOptions } from '@/features/deliveries/api/get-booking-deliveries';
+import { bookingDisputesQueryOptions } from '@/features/disputes/api/get-booking-disputes';
+import { bookingMoneyQueryOptions } from '@/features/payments/api/get-booking-money';
+import { bookingReviewsQueryOptions } from '@/features/reviews/api/get-booking-reviews';
+import { sessionPrepQueryOptions } from '@/features/session-prep/api/get-session-prep';
 import { createRoutes } from './router';
 
 afterEach(() => {
@@ -60,6 +66,26 @@ describe('app routes', () => {
     expect(screen.getByRole('link', { name: 'Back to the home page' }).getAttribute('href')).toBe('/');
   });
 
+  it('has every panel of the booking page fetched before the page first renders, so nothing below shifts', async () => {
+    const booking = '/api/bookings/b1';
+    const server = fakeServer([
+      { method: 'GET', path: '/api/me', status: 200, body: { user: drummer } },
+      { method: 'GET', path: booking, status: 200, body: { booking: { id: 'b1' } } },
+      { method: 'GET', path: `${booking}/money`, status: 200, body: { money: { stage: 'funded' } } },
+      { method: 'GET', path: `${booking}/disputes`, status: 200, body: { items: [] } },
+      { method: 'GET', path: `${booking}/reviews`, status: 200, body: { items: [], canReview: [] } },
+      { method: 'GET', path: `${booking}/deliveries`, status: 200, body: { items: [], canCreate: false } },
+      { method: 'GET', path: `${booking}/prep`, status: 200, body: { prep: null } },
+    ]);
+    const queryClient = testQueryClient();
+    // Not rendered: whatever is in the cache once the route is ready was fetched by its loader, not by a panel.
+    const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: ['/bookings/b1'] });
+    await vi.waitFor(() => expect(router.state.initialized).toBe(true), { timeout: 5000 });
+    const keys = [bookingQueryOptions, bookingMoneyQueryOptions, bookingDisputesQueryOptions, bookingReviewsQueryOptions, bookingDeliveriesQueryOptions, sessionPrepQueryOptions].map((options) => options('b1').queryKey);
+    expect(keys.map((key) => queryClient.getQueryState(key)?.status)).toEqual(Array(6).fill('success'));
+    expect(server.calls.filter((c) => c.path.startsWith(booking))).toHaveLength(6);
+    router.dispose();
+  });
 
   it('shows the error page with a way back when the server cannot be reached', async () => {
     vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('fetch failed'))));
