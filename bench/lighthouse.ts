@@ -1,6 +1,6 @@
 // Lighthouse (performance + accessibility) on the built client served by the real server, with Debian's
-// Chromium: the home page, the drummer search (/drummers) and a review page (a songwriter's booking, where
-// delivered stems are reviewed — signed in through the session cookie). Desktop preset (no mobile CPU/network
+// Chromium: the home page, the drummer search (/drummers) and the review room (the demo songwriter's
+// delivered stems, /deliveries/:id — signed in through the session cookie). Desktop preset (no mobile CPU/network
 // throttling): Kitlane's review work happens at a desk with studio monitors. Targets: performance ≥ 0.9,
 // accessibility 1.0 (issue 7).
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -18,7 +18,8 @@ const CHROME_FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-
 export type LighthousePage = { name: string; path: string; performance: number | null; accessibility: number | null; failedA11y: string[] };
 export type LighthouseBenchResult = { pages: LighthousePage[]; preset: string };
 
-const DEMO_SONGWRITER = 'mara@kitlane.test';
+// The demo songwriter whose booking has a delivered version waiting in the review room.
+const DEMO_REVIEWER = 'ines@kitlane.test';
 
 async function signIn(base: string, email: string, password: string): Promise<string> {
   const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
@@ -28,15 +29,18 @@ async function signIn(base: string, email: string, password: string): Promise<st
   return cookie.split(';')[0];
 }
 
-/** The songwriter's booking furthest along (a delivered one has stems to review). */
+/**
+ * The review room of the demo world's delivered booking ("Salt Road", seeded with eight synthesised stems):
+ * the songwriter's newest submitted delivery on a booking that is waiting for their review.
+ */
 async function reviewPath(base: string, cookie: string): Promise<string> {
-  const res = await fetch(`${base}/api/bookings`, { headers: { cookie } });
-  const body = (await res.json()) as { items?: { id: string; status: string }[] };
-  const items = body.items ?? [];
-  const order = ['delivered', 'changes_requested', 'accepted', 'paid_out', 'recording', 'funded', 'disputed', 'settled'];
-  const best = [...items].sort((a, b) => (order.indexOf(a.status) + 99) % 99 - (order.indexOf(b.status) + 99) % 99)[0];
-  if (!best) throw new Error('the demo songwriter has no booking to review');
-  return `/bookings/${best.id}`;
+  const bookings = (await (await fetch(`${base}/api/bookings`, { headers: { cookie } })).json()) as { items?: { id: string; status: string }[] };
+  for (const booking of (bookings.items ?? []).filter((b) => b.status === 'delivered' || b.status === 'changes_requested')) {
+    const list = (await (await fetch(`${base}/api/bookings/${booking.id}/deliveries`, { headers: { cookie } })).json()) as { items?: { id: string }[] };
+    const newest = list.items?.[0];
+    if (newest) return `/deliveries/${newest.id}`;
+  }
+  throw new Error(`the demo songwriter ${DEMO_REVIEWER} has no delivery to review`);
 }
 
 export type LighthouseOptions = {
@@ -70,7 +74,7 @@ export async function runLighthouseBench(opts: LighthouseOptions = {}): Promise<
     // APP_URL follows the random port so the same-origin guard and links match what Chromium opens.
     running = await boot({ env, randomPorts: true, quiet: true, appDeps: { clientDist: distDir } });
     const base = running.url;
-    const cookie = await signIn(base, DEMO_SONGWRITER, env.DEMO_PASSWORD);
+    const cookie = await signIn(base, DEMO_REVIEWER, env.DEMO_PASSWORD);
     const pages: { name: string; path: string; cookie: string | null }[] = [
       { name: 'home', path: '/', cookie: null },
       { name: 'search', path: '/drummers', cookie: null },

@@ -1,3 +1,4 @@
+import compression from 'compression';
 import express, { type Express, type RequestHandler } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
@@ -96,6 +97,9 @@ export function createApp(deps: AppDeps): KitlaneApp {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders(Boolean(deps.devMiddleware), Boolean(deps.env.STRIPE_PUBLISHABLE_KEY)));
+  // gzip for text (scripts, styles, JSON, peaks) when the client asks for it; audio, images and zips are
+  // already compressed and `compressible` leaves them, and their Range requests, untouched.
+  app.use(compression());
 
   const api = express.Router();
   api.get('/health', (_req, res) => {
@@ -119,6 +123,8 @@ export function createApp(deps: AppDeps): KitlaneApp {
     app.use(deps.devMiddleware);
   } else if (deps.clientDist && existsSync(deps.clientDist)) {
     const dist = deps.clientDist;
+    // Vite names built assets by content hash, so they never change under a name: cache them for a year.
+    app.use('/assets', express.static(join(dist, 'assets'), { index: false, immutable: true, maxAge: '365d' }));
     app.use(express.static(dist, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the app shell; the router shows its own 404 page.
     app.get('/{*splat}', (_req, res) => {

@@ -147,7 +147,10 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
             </Button>
           </span>
         </div>
-        {!ready && !failed ? <Spinner label={`Loading the stems (${loaded} of ${stems.length})`} /> : null}
+        {/* The loading line keeps its height once the stems are in, so the lanes below do not jump up. */}
+        <div className="min-h-6">
+          {!ready && !failed ? <Spinner label={`Loading the stems (${loaded} of ${stems.length})`} /> : null}
+        </div>
         {failed ? <Alert tone="error">{failed}</Alert> : null}
         <div className="grid grid-cols-[13rem_1fr] gap-x-3">
           <ul aria-label="Stems" className="space-y-1">
