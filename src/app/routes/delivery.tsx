@@ -1,6 +1,7 @@
+import { lazy, Suspense } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '@/config/paths';
-import { Alert, PageHeader } from '@/components/ui';
+import { Alert, PageHeader, Spinner } from '@/components/ui';
 import { QueryState } from '@/features/briefs/components/query-state';
 import { useQuery } from '@tanstack/react-query';
 import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
@@ -10,8 +11,11 @@ import { CheckReport } from '@/features/deliveries/components/check-report';
 import { DeliveryBadge } from '@/features/deliveries/components/deliveries-panel';
 import { DownloadsCard } from '@/features/deliveries/components/downloads-card';
 import { ReviewRoom } from '@/features/deliveries/components/review-room';
-import { UploadPanel } from '@/features/deliveries/components/upload-panel';
 import { useDocumentTitle } from '@/lib/use-document-title';
+
+// Only the drummer or engineer uploading sees this panel; its resumable-upload client stays out of the
+// review room's download.
+const UploadPanel = lazy(() => import('@/features/deliveries/components/upload-panel').then((m) => ({ default: m.UploadPanel })));
 
 export function Component() {
   const { deliveryId = '' } = useParams();
@@ -47,7 +51,9 @@ export function Component() {
             {d.decision === 'changes_requested' ? <Alert tone="warning" className="mb-4">Changes were asked for on this version.</Alert> : null}
             {uploading ? (
               <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
-                <UploadPanel delivery={d} inputList={list.data?.inputList ?? []} />
+                <Suspense fallback={<Spinner label="Loading the upload panel" />}>
+                  <UploadPanel delivery={d} inputList={list.data?.inputList ?? []} />
+                </Suspense>
                 <CheckReport check={d.check} />
               </div>
             ) : d.status !== 'ready' ? (
