@@ -1,5 +1,5 @@
 import compression from 'compression';
-import express, { type Express, type RequestHandler } from 'express';
+import express, { type Express, type Request, type RequestHandler, type Response } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
@@ -80,6 +80,17 @@ function securityHeaders(dev: boolean, realStripe: boolean): RequestHandler {
   });
 }
 
+/**
+ * gzip for the client's scripts and styles and the API's JSON when the client asks for it. Stored files
+ * (served with Accept-Ranges: previews, peaks, originals, attachments) are sent as they are: audio is
+ * already compressed, and gzipping a dozen peaks files while the previews stream shares libuv's small
+ * thread pool with the file reads, which delayed the review room's first play by about 0.3 s (bench:review).
+ */
+function worthCompressing(req: Request, res: Response): boolean {
+  if (res.getHeader('Accept-Ranges')) return false;
+  return compression.filter(req, res);
+}
+
 export function createApp(deps: AppDeps): KitlaneApp {
   const logger = deps.logger ?? createLogger(deps.env.LOG_LEVEL);
   const appUrl = appUrlOf(deps.env);
@@ -97,9 +108,7 @@ export function createApp(deps: AppDeps): KitlaneApp {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders(Boolean(deps.devMiddleware), Boolean(deps.env.STRIPE_PUBLISHABLE_KEY)));
-  // gzip for text (scripts, styles, JSON, peaks) when the client asks for it; audio, images and zips are
-  // already compressed and `compressible` leaves them, and their Range requests, untouched.
-  app.use(compression());
+  app.use(compression({ filter: worthCompressing }));
 
   const api = express.Router();
   api.get('/health', (_req, res) => {
