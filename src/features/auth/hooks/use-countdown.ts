@@ -1,14 +1,17 @@
 import { useEffect, useState } from 'react';
 
-/** Seconds left until `until` (ms since epoch), ticking once a second; 0 when there is nothing to wait for. */
+/**
+ * Seconds left until `until` (ms since epoch), ticking once a second; 0 when there is nothing to wait for.
+ * The clock is read at render: a tick stored at mount would be stale on the render that brings a new `until`,
+ * and the first figure shown would be a second or more too high.
+ */
 export function useCountdown(until: number | null): number {
-  const [now, setNow] = useState(() => Date.now());
+  const [, setTick] = useState(0);
   useEffect(() => {
     if (until === null) return;
-    setNow(Date.now());
-    const timer = setInterval(() => setNow(Date.now()), 1000);
+    const timer = setInterval(() => setTick((t) => t + 1), 1000);
     return () => clearInterval(timer);
   }, [until]);
   if (until === null) return 0;
-  return Math.max(0, Math.ceil((until - now) / 1000));
+  return Math.max(0, Math.ceil((until - Date.now()) / 1000));
 }
