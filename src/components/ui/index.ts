@@ -8,4 +8,5 @@ export { Spinner, SpinnerIcon, PageSpinner } from './spinner';
 export { Badge } from './badge';
 export { PageHeader } from './page-header';
 export { EmptyState } from './empty-state';
+export { ScrollRegion } from './scroll-region';
 export { cx } from './cx';

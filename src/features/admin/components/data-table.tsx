@@ -8,7 +8,7 @@ import {
   type ColumnDef,
   type SortingState,
 } from '@tanstack/react-table';
-import { Button, cx } from '@/components/ui';
+import { Button, ScrollRegion, cx } from '@/components/ui';
 
 const SORT_WORDS = { asc: 'ascending', desc: 'descending' } as const;
 
@@ -47,7 +47,7 @@ export function DataTable<T>({
   const pages = table.getPageCount();
   return (
     <div className="space-y-3">
-      <div className="overflow-x-auto rounded-xl border border-line bg-canvas-raised">
+      <ScrollRegion label={caption} className="rounded-xl border border-line bg-canvas-raised">
         <table className="w-full border-collapse text-left text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-canvas-sunken">
@@ -83,7 +83,7 @@ export function DataTable<T>({
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       {pages > 1 ? (
         <nav aria-label={`${caption}: pages`} className={cx('flex items-center gap-3')}>
           <Button variant="secondary" size="sm" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>

@@ -3,7 +3,7 @@ import { formatMoney } from '@shared/money';
 import { MIC_TYPE_LABELS, POLAR_PATTERN_LABELS, SOURCES } from '@shared/mic-package';
 import type { MicPackageView } from '@shared/schemas/mic-packages';
 import { paths } from '@/config/paths';
-import { Badge, ButtonLink, Card } from '@/components/ui';
+import { Badge, ButtonLink, Card, ScrollRegion } from '@/components/ui';
 import { PackagePairs } from './package-pairs';
 
 /** A package as songwriters and drummers see it: the input list, read-only, with its pairs. */
@@ -23,7 +23,7 @@ export function PackageSummary({ pkg, headingLevel = 3 }: { pkg: MicPackageView;
           {pkg.roomName}
         </Link>
       </p>
-      <div className="overflow-x-auto">
+      <ScrollRegion label={`Input list of ${pkg.name}`}>
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Input list of {pkg.name}</caption>
           <thead>
@@ -50,7 +50,7 @@ export function PackageSummary({ pkg, headingLevel = 3 }: { pkg: MicPackageView;
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       <details>
         <summary className="cursor-pointer text-sm font-medium text-brand-800">Pairs and expected polarity</summary>
         <div className="mt-2">
