@@ -81,13 +81,14 @@ function securityHeaders(dev: boolean, realStripe: boolean): RequestHandler {
 }
 
 /**
- * gzip for the client's scripts and styles and the API's JSON when the client asks for it. Stored files
- * (served with Accept-Ranges: previews, peaks, originals, attachments) are sent as they are: audio is
+ * gzip for the client's scripts and styles and the API's JSON when the client asks for it. The API's stored
+ * files (served with Accept-Ranges: previews, peaks, originals, attachments) are sent as they are: audio is
  * already compressed, and gzipping a dozen peaks files while the previews stream shares libuv's small
  * thread pool with the file reads, which delayed the review room's first play by about 0.3 s (bench:review).
+ * Only under /api: express.static also says Accept-Ranges, and the client's bundle must still be gzipped.
  */
 function worthCompressing(req: Request, res: Response): boolean {
-  if (res.getHeader('Accept-Ranges')) return false;
+  if (req.originalUrl.startsWith('/api/') && res.getHeader('Accept-Ranges')) return false;
   return compression.filter(req, res);
 }
 

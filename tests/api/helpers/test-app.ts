@@ -9,7 +9,7 @@ import type { CaughtMail } from '../../../fakes/mail/server';
 export type TestApp = Running & { dataDir: string; client(): ApiClient; waitForMail(to: string, subject?: RegExp): Promise<CaughtMail> };
 
 /** The real app in-process on a random port with a fresh SQLite file and the real mail catcher. */
-export async function startTestApp(opts: { seed?: boolean; limits?: Partial<Limits>; env?: Record<string, string> } = {}): Promise<TestApp> {
+export async function startTestApp(opts: { seed?: boolean; limits?: Partial<Limits>; env?: Record<string, string>; clientDist?: string } = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(join(tmpdir(), 'kitlane-api-'));
   const env = parseEnv({
     ...process.env,
@@ -20,7 +20,7 @@ export async function startTestApp(opts: { seed?: boolean; limits?: Partial<Limi
     APP_URL: 'http://kitlane.test',
     ...opts.env,
   });
-  const running = await boot({ env, randomPorts: true, quiet: true, appDeps: { limits: opts.limits, jobOptions: { pollMs: 50, backoffBaseMs: 100 } } });
+  const running = await boot({ env, randomPorts: true, quiet: true, appDeps: { limits: opts.limits, jobOptions: { pollMs: 50, backoffBaseMs: 100 }, ...(opts.clientDist ? { clientDist: opts.clientDist } : {}) } });
   const close = running.close;
   return {
     ...running,
