@@ -6,6 +6,7 @@ import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { fakeServer, testQueryClient } from '@/testing/render-with-providers';
 import { bookingQueryOptions } from '@/features/bookings/api/get-booking';
 import { bookingDeliveriesQueryOptions } from '@/features/deliveries/api/get-booking-deliveries';
+import { deliveryQueryOptions } from '@/features/deliveries/api/get-delivery';
 import { bookingDisputesQueryOptions } from '@/features/disputes/api/get-booking-disputes';
 import { bookingMoneyQueryOptions } from '@/features/payments/api/get-booking-money';
 import { bookingReviewsQueryOptions } from '@/features/reviews/api/get-booking-reviews';
@@ -84,6 +85,34 @@ describe('app routes', () => {
     const keys = [bookingQueryOptions, bookingMoneyQueryOptions, bookingDisputesQueryOptions, bookingReviewsQueryOptions, bookingDeliveriesQueryOptions, sessionPrepQueryOptions].map((options) => options('b1').queryKey);
     expect(keys.map((key) => queryClient.getQueryState(key)?.status)).toEqual(Array(6).fill('success'));
     expect(server.calls.filter((c) => c.path.startsWith(booking))).toHaveLength(6);
+    router.dispose();
+  });
+
+  it('has the delivery, its booking and its versions fetched before the review room first renders', async () => {
+    const server = fakeServer([
+      { method: 'GET', path: '/api/me', status: 200, body: { user: drummer } },
+      { method: 'GET', path: '/api/deliveries/d1', status: 200, body: { delivery: { id: 'd1', bookingId: 'b7', number: 1 } } },
+      { method: 'GET', path: '/api/bookings/b7', status: 200, body: { booking: { id: 'b7' } } },
+      { method: 'GET', path: '/api/bookings/b7/deliveries', status: 200, body: { items: [], canCreate: false } },
+    ]);
+    const queryClient = testQueryClient();
+    const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: ['/deliveries/d1'] });
+    await vi.waitFor(() => expect(router.state.initialized).toBe(true), { timeout: 5000 });
+    const keys = [deliveryQueryOptions('d1').queryKey, bookingQueryOptions('b7').queryKey, bookingDeliveriesQueryOptions('b7').queryKey];
+    expect(keys.map((key) => queryClient.getQueryState(key)?.status)).toEqual(['success', 'success', 'success']);
+    expect(server.calls.map((c) => c.path).filter((p) => p !== '/api/me').sort()).toEqual(['/api/bookings/b7', '/api/bookings/b7/deliveries', '/api/deliveries/d1']);
+    router.dispose();
+  });
+
+  it('sends a signed-out visitor of a delivery to sign in, the delivery request dropped', async () => {
+    fakeServer([
+      { method: 'GET', path: '/api/me', status: 200, body: { user: null } },
+      { method: 'GET', path: '/api/deliveries/d1', status: 401, body: { error: { code: 'unauthorized', message: 'Sign in first' } } },
+    ]);
+    const queryClient = testQueryClient();
+    const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: ['/deliveries/d1'] });
+    await vi.waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'), { timeout: 5000 });
+    expect(router.state.location.search).toBe('?next=%2Fdeliveries%2Fd1');
     router.dispose();
   });
 

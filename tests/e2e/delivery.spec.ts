@@ -85,10 +85,26 @@ describe('delivering stems and reviewing them', () => {
 
   it('lets the songwriter play the stems, mute one, leave a note and request changes', async () => {
     const { page } = await signedIn('teo@kitlane.test');
+    // Counts the audio outputs each document opens (set up before the booking page loads).
+    await page.addInitScript(() => {
+      const w = window as unknown as { AudioContext: typeof AudioContext; audioOutputs: number };
+      const Real = w.AudioContext;
+      w.audioOutputs = 0;
+      w.AudioContext = class extends Real {
+        constructor(options?: AudioContextOptions) {
+          super(options);
+          w.audioOutputs++;
+        }
+      };
+    });
+    const audioOutputs = () => page.evaluate(() => (window as unknown as { audioOutputs: number }).audioOutputs);
     const openToPlayableMs = await openReviewRoom(page, 1);
     expect(openToPlayableMs).toBeLessThan(2000);
     await expect.poll(() => page.getByTestId('stem-row').count()).toBe(3);
+    // Decoding needs no audio output: it opens only when the listener reaches for Play (it blocks the page a while).
+    expect(await audioOutputs()).toBe(0);
     await page.getByTestId('transport-play').click();
+    expect(await audioOutputs()).toBe(1);
     await expect.poll(() => page.getByTestId('transport-play').getAttribute('aria-pressed')).toBe('true');
     // The transport moves.
     await expect.poll(async () => (await page.getByLabel('Position').textContent())?.startsWith('0:00.0'), { timeout: 5_000 }).toBe(false);

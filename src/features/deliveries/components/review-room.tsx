@@ -3,6 +3,7 @@ import { useQueries } from '@tanstack/react-query';
 import { getPart } from '@shared/stems/parts';
 import { deliveryPaths, type DeliveryFileView, type DeliveryView } from '@shared/schemas/deliveries';
 import { Alert, Button, Card, cx, Spinner } from '@/components/ui';
+import { useAfterPaint } from '@/lib/use-after-paint';
 import { stemPeaksQueryOptions } from '../api/get-stem-peaks';
 import { Multitrack } from '../lib/multitrack';
 import { formatTime } from '../lib/format';
@@ -29,12 +30,14 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
   const playhead = useRef<HTMLDivElement>(null);
   const clock = useRef<HTMLSpanElement>(null);
   const scroller = useRef<HTMLDivElement>(null);
-  const peaks = useQueries({ queries: stems.map((s) => stemPeaksQueryOptions(delivery.id, s.id, s.hasPeaks)) });
+  // The stems' audio and waveforms are fetched once the room has painted (see useAfterPaint).
+  const painted = useAfterPaint();
+  const peaks = useQueries({ queries: stems.map((s) => stemPeaksQueryOptions(delivery.id, s.id, s.hasPeaks && painted)) });
   const stemKey = stems.map((s) => s.id).join(',');
 
   // Loads the previews once per set of stems; the marks let tests and people measure open → playable.
   useEffect(() => {
-    if (stems.length === 0) return;
+    if (stems.length === 0 || !painted) return;
     const controller = new AbortController();
     const mt = new Multitrack();
     engine.current = mt;
@@ -60,7 +63,7 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
       setLoaded(0);
     };
     // eslint-disable-next-line react-hooks/exhaustive-deps -- reload only when the set of stems changes
-  }, [delivery.id, stemKey]);
+  }, [delivery.id, stemKey, painted]);
 
   useEffect(() => {
     const el = scroller.current;
@@ -100,6 +103,10 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
     }
   }
 
+  function warmUp() {
+    engine.current?.warmUp();
+  }
+
   function seek(to: number) {
     engine.current?.seek(to);
   }
@@ -128,7 +135,8 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
     <div className="space-y-4">
       <Card className="space-y-3" aria-label="Review room">
         <div className="flex flex-wrap items-center gap-3">
-          <Button onClick={toggle} disabled={!ready} aria-pressed={playing} data-testid="transport-play">
+          {/* Reaching for Play opens the audio output, so the click itself starts at once. */}
+          <Button onClick={toggle} onPointerEnter={warmUp} onFocus={warmUp} disabled={!ready} aria-pressed={playing} data-testid="transport-play">
             {playing ? 'Pause' : 'Play'}
           </Button>
           <Button variant="secondary" size="sm" disabled={!ready} onClick={() => seek(0)}>

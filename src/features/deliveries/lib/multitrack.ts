@@ -4,6 +4,13 @@ import { prefixBytes } from './mp3-frames';
 // AudioBuffer, and on play one AudioBufferSourceNode per stem, all started at the same context time. Web
 // Audio schedules those starts on the same sample frame, so the stems stay sample-aligned (the 10 ms
 // requirement is met with room to spare) however long they play.
+//
+// The previews are decoded on an OfflineAudioContext, which opens no audio device and costs well under a
+// millisecond to make. The AudioContext that plays is opened only when the listener reaches for the
+// transport (warmUp on hover or focus, or the first play): the first one a page opens blocks the main
+// thread for about 125 ms while the audio output starts (measured in Debian's Chromium), which was most
+// of the review room's blocking time while it loaded. AudioBuffers are not tied to the context that
+// decoded them, so the same buffers play on the real one.
 
 /** The previews' rate (server/features/deliveries/previews): the context runs at it, so nothing resamples. */
 export const PREVIEW_RATE = 24_000;
@@ -40,11 +47,12 @@ async function restOf(url: string, head: Uint8Array, signal: AbortSignal | undef
   return whole;
 }
 
-export type StemChannel = { id: string; buffer: AudioBuffer; full: boolean; gain: GainNode; level: number; muted: boolean; soloed: boolean };
+export type StemChannel = { id: string; buffer: AudioBuffer; full: boolean; gain: GainNode | null; level: number; muted: boolean; soloed: boolean };
 
 export class Multitrack {
-  readonly context: AudioContext;
-  private readonly master: GainNode;
+  private readonly decoder = new OfflineAudioContext({ numberOfChannels: 1, length: 1, sampleRate: PREVIEW_RATE });
+  private output: { context: AudioContext; master: GainNode } | null = null;
+  private closed = false;
   private channels: StemChannel[] = [];
   private sources: AudioBufferSourceNode[] = [];
   private startedAt = 0;
@@ -53,10 +61,32 @@ export class Multitrack {
   private endTimer: ReturnType<typeof setTimeout> | null = null;
   onEnded: (() => void) | null = null;
 
-  constructor() {
-    this.context = new AudioContext({ sampleRate: PREVIEW_RATE, latencyHint: 'playback' });
-    this.master = this.context.createGain();
-    this.master.connect(this.context.destination);
+  private get context(): AudioContext {
+    return this.openOutput();
+  }
+
+  /** The playing context, opened on first use; every stem gets its gain node on it then. */
+  private openOutput(): AudioContext {
+    if (!this.output) {
+      const context = new AudioContext({ sampleRate: PREVIEW_RATE, latencyHint: 'playback' });
+      const master = context.createGain();
+      master.connect(context.destination);
+      this.output = { context, master };
+      for (const c of this.channels) this.connect(c);
+      this.applyGains();
+    }
+    return this.output.context;
+  }
+
+  private connect(channel: StemChannel): void {
+    if (!this.output || channel.gain) return;
+    channel.gain = this.output.context.createGain();
+    channel.gain.connect(this.output.master);
+  }
+
+  /** Opens the audio output ahead of the first play (the transport is hovered or focused), off the load path. */
+  warmUp(): void {
+    if (!this.closed) this.openOutput();
   }
 
   /**
@@ -73,16 +103,13 @@ export class Multitrack {
         const head = await fetchPreview(s.url, signal, 0);
         const cut = prefixBytes(head.bytes, FIRST_PART_SEC);
         // decodeAudioData detaches what it is given: hand it a copy of the first part.
-        const buffer = await this.context.decodeAudioData(head.bytes.slice(0, cut).buffer);
+        const buffer = await this.decoder.decodeAudioData(head.bytes.slice(0, cut).buffer);
         onLoaded?.(s.id);
         return { id: s.id, url: s.url, head, buffer, full: head.complete && cut >= head.bytes.length };
       }),
     );
-    this.channels = firsts.map(({ id, buffer, full }) => {
-      const gain = this.context.createGain();
-      gain.connect(this.master);
-      return { id, buffer, full, gain, level: 1, muted: false, soloed: false };
-    });
+    this.channels = firsts.map(({ id, buffer, full }) => ({ id, buffer, full, gain: null, level: 1, muted: false, soloed: false }));
+    for (const c of this.channels) this.connect(c);
     this.applyGains();
     const files = firsts.map((f) => ({ id: f.id, bytes: f.head.complete ? Promise.resolve(f.head.bytes) : restOf(f.url, f.head.bytes, signal) }));
     // decodeWhole awaits them in turn; when one fails (an abort) the others must not surface as unhandled.
@@ -102,13 +129,13 @@ export class Multitrack {
     // One at a time: the page stays responsive and the first parts keep playing meanwhile.
     const whole: { id: string; buffer: AudioBuffer }[] = [];
     for (const f of files) {
-      if (signal?.aborted || this.context.state === 'closed') return;
+      if (signal?.aborted || this.closed) return;
       const channel = this.channels.find((c) => c.id === f.id);
       if (channel?.full) continue;
       const bytes = await f.bytes;
-      whole.push({ id: f.id, buffer: await this.context.decodeAudioData(bytes.buffer as ArrayBuffer) });
+      whole.push({ id: f.id, buffer: await this.decoder.decodeAudioData(bytes.buffer as ArrayBuffer) });
     }
-    if (this.context.state === 'closed') return;
+    if (this.closed) return;
     const swap = this.playingNow ? this.context.currentTime + START_AHEAD_SEC * 2 : null;
     for (const w of whole) {
       const c = this.channels.find((x) => x.id === w.id);
@@ -153,7 +180,7 @@ export class Multitrack {
     this.sources = this.channels.map((c) => {
       const source = this.context.createBufferSource();
       source.buffer = c.buffer;
-      source.connect(c.gain);
+      if (c.gain) source.connect(c.gain);
       if (at < c.buffer.duration) source.start(when, at);
       return source;
     });
@@ -203,7 +230,8 @@ export class Multitrack {
   async close(): Promise<void> {
     this.stopSources();
     this.playingNow = false;
-    await this.context.close();
+    this.closed = true;
+    await this.output?.context.close();
   }
 
   private update(id: string, values: Partial<Pick<StemChannel, 'level' | 'muted' | 'soloed'>>): void {
@@ -215,12 +243,14 @@ export class Multitrack {
 
   /** Solo wins over the rest; mute silences a stem even while soloed (the common mixer rule). */
   private applyGains(): void {
+    // Before the output opens there are no gain nodes: the levels wait in the channels and apply on opening.
+    if (!this.output) return;
     const anySolo = this.channels.some((c) => c.soloed);
-    const now = this.context.currentTime;
+    const now = this.output.context.currentTime;
     for (const c of this.channels) {
       const audible = !c.muted && (!anySolo || c.soloed);
       // A short ramp avoids clicks when a stem is muted mid-play.
-      c.gain.gain.setTargetAtTime(audible ? c.level : 0, now, 0.01);
+      c.gain?.gain.setTargetAtTime(audible ? c.level : 0, now, 0.01);
     }
   }
 
