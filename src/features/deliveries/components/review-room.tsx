@@ -49,6 +49,9 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
         performance.mark('review-playable');
         setDuration(mt.duration);
         setReady(true);
+        // The audio output opens now, in a task of its own, before the whole stems' decoding takes the CPU:
+        // opened at the first click instead, its start took about a second behind that decoding (bench:review).
+        setTimeout(() => mt.warmUp(), 0);
         return mt.whenWhole().then(() => performance.mark('review-whole'));
       })
       .catch((e: unknown) => {

@@ -6,10 +6,10 @@ import { prefixBytes } from './mp3-frames';
 // requirement is met with room to spare) however long they play.
 //
 // The previews are decoded on an OfflineAudioContext, which opens no audio device and costs well under a
-// millisecond to make. The AudioContext that plays is opened only when the listener reaches for the
-// transport (warmUp on hover or focus, or the first play): the first one a page opens blocks the main
-// thread for about 125 ms while the audio output starts (measured in Debian's Chromium), which was most
-// of the review room's blocking time while it loaded. AudioBuffers are not tied to the context that
+// millisecond to make. The AudioContext that plays is opened later, in a task of its own (warmUp: once the
+// room is playable, on hover or focus of Play, or at the first play): the first one a page opens blocks the
+// main thread for about 110–125 ms while the audio output starts (measured in Debian's Chromium), which was
+// most of the review room's blocking time while it loaded. AudioBuffers are not tied to the context that
 // decoded them, so the same buffers play on the real one.
 
 /** The previews' rate (server/features/deliveries/previews): the context runs at it, so nothing resamples. */
@@ -84,7 +84,7 @@ export class Multitrack {
     channel.gain.connect(this.output.master);
   }
 
-  /** Opens the audio output ahead of the first play (the transport is hovered or focused), off the load path. */
+  /** Opens the audio output ahead of the first play, off the load path (idempotent). */
   warmUp(): void {
     if (!this.closed) this.openOutput();
   }
