@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { join, posix, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { gzipSync } from 'node:zlib';
+import { inProductionMode } from '../tests/e2e/helpers/server';
 
 export const INITIAL_JS_TARGET_KB = 180;
 
@@ -23,7 +24,7 @@ export type BundleBenchResult = {
 /** Builds the client with Vite's API into `outDir` (a temp folder by default, so dist/ of a running server is untouched). */
 export async function buildClient(outDir = mkdtempSync(join(tmpdir(), 'kitlane-bench-dist-'))): Promise<string> {
   const { build } = await import('vite');
-  await build({ root: process.cwd(), logLevel: 'error', build: { outDir, emptyOutDir: true } });
+  await inProductionMode(() => build({ root: process.cwd(), logLevel: 'error', build: { outDir, emptyOutDir: true } }));
   return outDir;
 }
 

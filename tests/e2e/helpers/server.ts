@@ -32,17 +32,26 @@ export function buildClientOnce(): Promise<void> {
   if (clientBuildIsFresh()) return Promise.resolve();
   building ??= (async () => {
     const { build } = await import('vite');
-    // Vitest sets NODE_ENV=test, and Vite keeps an existing NODE_ENV: without this the test would ship
-    // React's development build (larger, and not what users get).
-    const previous = process.env.NODE_ENV;
-    process.env.NODE_ENV = 'production';
-    try {
-      await buildProduction(build);
-    } finally {
-      process.env.NODE_ENV = previous;
-    }
+    await inProductionMode(() => buildProduction(build));
   })();
   return building;
+}
+
+/**
+ * Runs a Vite build with NODE_ENV=production and puts the old value back. Vitest sets NODE_ENV=test, and Vite
+ * keeps an existing NODE_ENV: without this a build ships React's development build (larger, and not what
+ * users get). An unset NODE_ENV is unset again: assigning undefined to process.env stores the string
+ * "undefined", which made every later build in the same process a development build.
+ */
+export async function inProductionMode<T>(run: () => Promise<T>): Promise<T> {
+  const previous = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    return await run();
+  } finally {
+    if (previous === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = previous;
+  }
 }
 
 async function buildProduction(build: typeof import('vite').build): Promise<void> {
