@@ -2,8 +2,8 @@
 // Chromium: the home page, the drummer search (/drummers) and the review room (the demo songwriter's
 // delivered stems, /deliveries/:id — signed in through the session cookie). Desktop preset (no mobile CPU/network
 // throttling): Kitlane's review work happens at a desk with studio monitors. Targets: performance ≥ 0.9,
-// accessibility 1.0 (issue 7). Each page runs three times and the median run is reported, as Lighthouse's
-// documentation on score variability advises (from memory: docs/variability.md in its repository).
+// accessibility 1.0 (issue 7). Each page runs three times and the run Lighthouse's own computeMedianRun picks is
+// reported, as its documentation on score variability advises (docs/variability.md in the Lighthouse repository).
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -97,11 +97,11 @@ export async function runLighthouseBench(opts: LighthouseOptions = {}): Promise<
     if (opts.reportDir) mkdirSync(opts.reportDir, { recursive: true });
     const out: LighthousePage[] = [];
     const runs = Math.max(1, opts.runs ?? 3);
+    const { computeMedianRun, filterToValidRuns } = await import('lighthouse/core/lib/median-run.js');
     for (const page of pages) {
       const audits: Audit[] = [];
       for (let i = 0; i < runs; i++) audits.push(await audit(base + page.path, chrome.port, page.cookie));
       // Runs whose trace lacks FCP or TTI (a failed load) are left out of the choice, as Lighthouse does.
-      const { computeMedianRun, filterToValidRuns } = await import('lighthouse/core/lib/median-run.js');
       const valid = filterToValidRuns(audits.map((a) => a.lhr));
       const chosen = valid.length ? computeMedianRun(valid) : audits[0].lhr;
       const { lhr, ...median } = audits.find((a) => a.lhr === chosen)!;

@@ -106,10 +106,6 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
     }
   }
 
-  function warmUp() {
-    engine.current?.warmUp();
-  }
-
   function seek(to: number) {
     engine.current?.seek(to);
   }
@@ -138,8 +134,7 @@ export function ReviewRoom({ delivery }: { delivery: DeliveryView }) {
     <div className="space-y-4">
       <Card className="space-y-3" aria-label="Review room">
         <div className="flex flex-wrap items-center gap-3">
-          {/* Reaching for Play opens the audio output, so the click itself starts at once. */}
-          <Button onClick={toggle} onPointerEnter={warmUp} onFocus={warmUp} disabled={!ready} aria-pressed={playing} data-testid="transport-play">
+          <Button onClick={toggle} disabled={!ready} aria-pressed={playing} data-testid="transport-play">
             {playing ? 'Pause' : 'Play'}
           </Button>
           <Button variant="secondary" size="sm" disabled={!ready} onClick={() => seek(0)}>

@@ -6,8 +6,8 @@ import { prefixBytes } from './mp3-frames';
 // requirement is met with room to spare) however long they play.
 //
 // The previews are decoded on an OfflineAudioContext, which opens no audio device and costs well under a
-// millisecond to make. The AudioContext that plays is opened later, in a task of its own (warmUp: once the
-// room is playable, on hover or focus of Play, or at the first play): the first one a page opens blocks the
+// millisecond to make. The AudioContext that plays is opened later, in a task of its own (warmUp, once the
+// room is playable; or at the first use if that comes sooner): the first one a page opens blocks the
 // main thread for about 110–125 ms while the audio output starts (measured in Debian's Chromium), which was
 // most of the review room's blocking time while it loaded. AudioBuffers are not tied to the context that
 // decoded them, so the same buffers play on the real one.
